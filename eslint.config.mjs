@@ -1,0 +1,13 @@
+// @ts-check
+import withNuxt from './.nuxt/eslint.config.mjs'
+
+export default withNuxt(
+  {
+    ignores: ['drizzle/**', '.data/**', '.output/**', 'test-results/**']
+  },
+  {
+    rules: {
+      'vue/multi-word-component-names': 'off'
+    }
+  }
+)

@@ -1,0 +1,62 @@
+// Sealwright: Nuxt 4 app with `app/` as srcDir, server routes under `server/`, pure computation in `shared/`.
+export default defineNuxtConfig({
+  compatibilityDate: '2026-11-01',
+  devtools: { enabled: false },
+  modules: ['@nuxtjs/tailwindcss', '@pinia/nuxt', 'nuxt-auth-utils', '@nuxt/eslint'],
+  css: [
+    '@fontsource/ibm-plex-sans/latin-400.css',
+    '@fontsource/ibm-plex-sans/latin-500.css',
+    '@fontsource/ibm-plex-sans/latin-600.css',
+    '@fontsource/ibm-plex-sans/latin-700.css',
+    '~/assets/css/main.css'
+  ],
+  tailwindcss: {
+    cssPath: '~/assets/css/main.css',
+    viewer: false
+  },
+  app: {
+    head: {
+      htmlAttrs: { lang: 'en' },
+      title: 'Sealwright',
+      meta: [
+        { name: 'viewport', content: 'width=device-width, initial-scale=1' },
+        { name: 'description', content: 'Readiness checks, headform tests and quantitative fit tests for respiratory-protection programs.' }
+      ],
+      link: [{ rel: 'icon', type: 'image/svg+xml', href: '/favicon.svg' }]
+    }
+  },
+  runtimeConfig: {
+    databaseUrl: '',
+    // Trust X-Forwarded-For only behind a known proxy; it decides which address sign-in throttling counts.
+    trustProxy: false,
+    session: {
+      name: 'sealwright-session',
+      maxAge: 60 * 60 * 12
+    },
+    mail: {
+      smtpUrl: 'smtp://127.0.0.1:2525',
+      from: 'Sealwright <no-reply@sealwright.example>',
+      // The local fake SMTP server's read-back address; empty in production, where there is no outbox page.
+      outboxUrl: ''
+    },
+    public: {
+      baseUrl: 'http://127.0.0.1:3000'
+    }
+  },
+  nitro: {
+    errorHandler: '~~/server/error-handler.ts',
+    output: process.env.SEALWRIGHT_OUTPUT_DIR ? { dir: process.env.SEALWRIGHT_OUTPUT_DIR } : undefined
+  },
+  typescript: {
+    strict: true
+  },
+  eslint: {
+    config: {
+      stylistic: {
+        quotes: 'single',
+        commaDangle: 'never',
+        braceStyle: '1tbs'
+      }
+    }
+  }
+})

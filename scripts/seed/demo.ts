@@ -1,0 +1,39 @@
+// Loads the invented demo scenario of DOMAIN.md. Run by `npm start` on an empty database only.
+import { DEMO_ORGANIZATIONS, DEMO_PASSWORD, demoEmail } from './demo-accounts.mjs'
+import type { SeedDb } from './db'
+import { schema } from './db'
+import { hashPassword } from './hash'
+
+export interface SeededOrganization {
+  id: string
+  slug: string
+  siteIds: string[]
+  userIds: Record<string, string>
+}
+
+export async function seedDemo(db: SeedDb, onProgress: (text: string) => void = () => {}): Promise<SeededOrganization[]> {
+  const passwordHash = await hashPassword(DEMO_PASSWORD)
+  const seeded: SeededOrganization[] = []
+  for (const org of DEMO_ORGANIZATIONS) {
+    onProgress(`${org.name}: organization, sites and accounts`)
+    const result = await db.transaction(async (tx) => {
+      const [row] = await tx.insert(schema.organizations).values({ name: org.name, slug: org.slug, ruleSet: org.ruleSet }).returning()
+      const sites = await tx.insert(schema.sites).values(org.sites.map(s => ({ ...s, organizationId: row!.id }))).returning()
+      const users = await tx.insert(schema.users).values(org.accounts.map(a => ({
+        organizationId: row!.id,
+        email: demoEmail(org, a.role),
+        displayName: a.displayName,
+        role: a.role as typeof schema.users.$inferInsert.role,
+        passwordHash
+      }))).returning()
+      return {
+        id: row!.id,
+        slug: org.slug,
+        siteIds: sites.map(s => s.id),
+        userIds: Object.fromEntries(users.map(u => [u.role, u.id]))
+      }
+    })
+    seeded.push(result)
+  }
+  return seeded
+}

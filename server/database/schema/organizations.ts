@@ -1,0 +1,41 @@
+import { relations } from 'drizzle-orm'
+import { index, jsonb, pgTable, text, uniqueIndex, uuid } from 'drizzle-orm/pg-core'
+import { id, timestamps } from './columns'
+
+export interface OrganizationSettings {
+  /** Months between fit tests; may be shorter than 12, never longer — 29 CFR 1910.134(f)(2). */
+  retestIntervalMonths?: number
+}
+
+export const organizations = pgTable('organizations', {
+  id: id(),
+  name: text().notNull(),
+  slug: text().notNull(),
+  /** Which pass-level rule set applies: 'us-osha' or 'uk-hse'. */
+  ruleSet: text().notNull().default('us-osha'),
+  settings: jsonb().$type<OrganizationSettings>().notNull().default({}),
+  ...timestamps
+}, table => [
+  uniqueIndex('organizations_slug_unique').on(table.slug)
+])
+
+export const sites = pgTable('sites', {
+  id: id(),
+  organizationId: uuid().notNull().references(() => organizations.id, { onDelete: 'cascade' }),
+  name: text().notNull(),
+  /** IANA time zone; decides which calendar day a readiness check covers. */
+  timeZone: text().notNull(),
+  address: text(),
+  ...timestamps
+}, table => [
+  index('sites_organization_idx').on(table.organizationId),
+  uniqueIndex('sites_organization_name_unique').on(table.organizationId, table.name)
+])
+
+export const organizationsRelations = relations(organizations, ({ many }) => ({
+  sites: many(sites)
+}))
+
+export const sitesRelations = relations(sites, ({ one }) => ({
+  organization: one(organizations, { fields: [sites.organizationId], references: [organizations.id] })
+}))

@@ -1,0 +1,46 @@
+import { and, eq } from 'drizzle-orm'
+import type { H3Event } from 'h3'
+import type { Role } from '#shared/utils/roles'
+import { roleAllows } from '#shared/utils/roles'
+
+export interface Caller {
+  id: string
+  organizationId: string
+  role: Role
+  email: string
+  displayName: string
+}
+
+/**
+ * The one gate every API route passes through. It re-reads the user from the database on each
+ * request, so a deactivated user or a changed role takes effect at once, whatever the cookie says.
+ * Anonymous → 401; signed in with a role not in `allowed` → 403. Admins pass every role check.
+ * With no roles given, any active signed-in user passes.
+ */
+export async function requireRole(event: H3Event, ...allowed: Role[]): Promise<Caller> {
+  const session = await getUserSession(event)
+  const sessionUser = session.user
+  if (!sessionUser?.id) {
+    throw createError({ statusCode: 401, statusMessage: 'Sign in to continue.' })
+  }
+  const [user] = await useDb()
+    .select({
+      id: schema.users.id,
+      organizationId: schema.users.organizationId,
+      role: schema.users.role,
+      email: schema.users.email,
+      displayName: schema.users.displayName,
+      active: schema.users.active
+    })
+    .from(schema.users)
+    .where(and(eq(schema.users.id, sessionUser.id), eq(schema.users.organizationId, sessionUser.organizationId)))
+  if (!user || !user.active) {
+    await clearUserSession(event)
+    throw createError({ statusCode: 401, statusMessage: 'Your account is no longer active. Ask your program administrator.' })
+  }
+  if (allowed.length > 0 && !roleAllows(user.role, allowed)) {
+    throw createError({ statusCode: 403, statusMessage: 'Your role does not allow this.' })
+  }
+  event.context.caller = user
+  return user
+}
