@@ -1,19 +1,7 @@
 // Sealwright: Nuxt 4 app with `app/` as srcDir, server routes under `server/`, pure computation in `shared/`.
 export default defineNuxtConfig({
-  compatibilityDate: '2026-11-01',
-  devtools: { enabled: false },
   modules: ['@nuxtjs/tailwindcss', '@pinia/nuxt', 'nuxt-auth-utils', '@nuxt/eslint'],
-  css: [
-    '@fontsource/ibm-plex-sans/latin-400.css',
-    '@fontsource/ibm-plex-sans/latin-500.css',
-    '@fontsource/ibm-plex-sans/latin-600.css',
-    '@fontsource/ibm-plex-sans/latin-700.css',
-    '~/assets/css/main.css'
-  ],
-  tailwindcss: {
-    cssPath: '~/assets/css/main.css',
-    viewer: false
-  },
+  devtools: { enabled: false },
   app: {
     head: {
       htmlAttrs: { lang: 'en' },
@@ -25,6 +13,13 @@ export default defineNuxtConfig({
       link: [{ rel: 'icon', type: 'image/svg+xml', href: '/favicon.svg' }]
     }
   },
+  css: [
+    '@fontsource/ibm-plex-sans/latin-400.css',
+    '@fontsource/ibm-plex-sans/latin-500.css',
+    '@fontsource/ibm-plex-sans/latin-600.css',
+    '@fontsource/ibm-plex-sans/latin-700.css',
+    '~/assets/css/main.css'
+  ],
   runtimeConfig: {
     databaseUrl: '',
     // Trust X-Forwarded-For only behind a known proxy; it decides which address sign-in throttling counts.
@@ -43,6 +38,7 @@ export default defineNuxtConfig({
       baseUrl: 'http://127.0.0.1:3000'
     }
   },
+  compatibilityDate: '2026-11-01',
   nitro: {
     errorHandler: '~~/server/error-handler.ts',
     output: process.env.SEALWRIGHT_OUTPUT_DIR ? { dir: process.env.SEALWRIGHT_OUTPUT_DIR } : undefined
@@ -58,5 +54,9 @@ export default defineNuxtConfig({
         braceStyle: '1tbs'
       }
     }
+  },
+  tailwindcss: {
+    cssPath: '~/assets/css/main.css',
+    viewer: false
   }
 })

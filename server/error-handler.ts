@@ -25,7 +25,7 @@ const handler: NitroErrorHandler = (error, event) => {
   if (!event.path.startsWith('/api/')) return
   setResponseStatus(event, 503, 'Database unavailable')
   setResponseHeader(event, 'Content-Type', 'application/json')
-  setResponseHeader(event, 'Retry-After', '5')
+  setResponseHeader(event, 'Retry-After', 5)
   return send(event, JSON.stringify({
     statusCode: 503,
     statusMessage: 'The database is not answering. Nothing was saved; try again in a moment.'

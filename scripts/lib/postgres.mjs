@@ -102,10 +102,9 @@ export async function ensureCluster({ dataDir, port }) {
     if (result.code !== 0) throw new Error(`initdb failed:\n${result.stderr || result.stdout}`)
   }
 
-  let owned = true
   if (clusterIsRunning(bin, dataDir)) {
     const owner = readOwner(dataDir)
-    owned = !owner || owner === process.pid || !processAlive(owner)
+    const owned = !owner || owner === process.pid || !processAlive(owner)
     if (owned) writeOwner(dataDir)
     return handle(bin, dataDir, port, owned)
   }

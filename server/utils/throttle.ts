@@ -1,4 +1,5 @@
 import { eq, inArray, sql } from 'drizzle-orm'
+import type { H3Event } from 'h3'
 
 /** Failures allowed per key inside the window before the key is locked for the rest of the window. */
 export const THROTTLE_RULES = {
@@ -16,7 +17,7 @@ function keysOf(keys: ThrottleKeys) {
 }
 
 /** Throws 429 with Retry-After when either the e-mail or the client address is locked. */
-export async function assertNotThrottled(keys: ThrottleKeys) {
+export async function assertNotThrottled(event: H3Event, keys: ThrottleKeys) {
   const k = keysOf(keys)
   const rows = await useDb().select().from(schema.signInFailures)
     .where(inArray(schema.signInFailures.key, [k.email, k.address]))
@@ -25,12 +26,12 @@ export async function assertNotThrottled(keys: ThrottleKeys) {
   if (lockedUntil > now) {
     const seconds = Math.ceil((lockedUntil - now) / 1000)
     const minutes = Math.ceil(seconds / 60)
+    setResponseHeader(event, 'Retry-After', seconds)
     throw createError({
       statusCode: 429,
       statusMessage: `Too many failed sign-ins. Try again in ${minutes} minute${minutes === 1 ? '' : 's'}.`,
-      data: { retryAfterSeconds: seconds },
-      headers: { 'Retry-After': String(seconds) }
-    } as Parameters<typeof createError>[0])
+      data: { retryAfterSeconds: seconds }
+    })
   }
 }
 

@@ -16,8 +16,9 @@ export const publicUserColumns = {
 
 export type PublicUser = Awaited<ReturnType<typeof findUser>>
 
-function toPublic<T extends { hasPassword: string | null }>(row: T) {
-  return { ...row, hasPassword: row.hasPassword !== null }
+function toPublic<T extends { hasPassword: string | null }>(row: T): Omit<T, 'hasPassword'> & { hasPassword: boolean } {
+  const { hasPassword, ...rest } = row
+  return { ...rest, hasPassword: hasPassword !== null }
 }
 
 export async function listUsers(organizationId: string, query: z.output<typeof listUsersQuerySchema>) {

@@ -6,7 +6,7 @@ const ANSWER = { sent: true, message: 'If that address has an active account, a 
 export default defineEventHandler(async (event) => {
   const { email } = await parseBody(event, passwordResetRequestSchema)
   const keys = { email, address: clientAddress(event) }
-  await assertNotThrottled(keys)
+  await assertNotThrottled(event, keys)
   // Each request counts as a failure for throttling, so the form cannot flood a mailbox.
   await recordSignInFailure(keys)
 

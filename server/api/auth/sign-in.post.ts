@@ -7,7 +7,7 @@ const GENERIC_FAILURE = 'That e-mail and password do not match an active account
 export default defineEventHandler(async (event) => {
   const { email, password } = await parseBody(event, signInSchema)
   const keys = { email, address: clientAddress(event) }
-  await assertNotThrottled(keys)
+  await assertNotThrottled(event, keys)
 
   const user = await findUserByEmail(email)
   const valid = user?.passwordHash ? await verifyPassword(user.passwordHash, password) : false
