@@ -14,9 +14,10 @@ import { appEnv, startBuiltApp } from '../../scripts/lib/services.mjs'
 import { waitFor } from '../../scripts/lib/run.mjs'
 import { projectDir } from '../support/env'
 
-const port = 54339
+// Ports beside the suite's own, so two checkouts testing at once never meet.
+const port = Number(process.env.SEALWRIGHT_PG_PORT || 54329) + 10
 const dataDir: string = resolveClusterDir(projectDir, 'pg-lifecycle-test')
-const appPort = 3199
+const appPort = Number(process.env.SEALWRIGHT_TEST_PORT || 3100) + 99
 let stopApp: (() => Promise<void>) | undefined
 
 async function answers(url: string) {

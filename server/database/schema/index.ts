@@ -1,3 +1,5 @@
 export * from './organizations'
 export * from './users'
 export * from './audit'
+export * from './respirators'
+export * from './equipment'

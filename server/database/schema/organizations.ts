@@ -5,6 +5,10 @@ import { id, timestamps } from './columns'
 export interface OrganizationSettings {
   /** Months between fit tests; may be shorter than 12, never longer — 29 CFR 1910.134(f)(2). */
   retestIntervalMonths?: number
+  /** What to do with a result no passing readiness check covers: only flag it, or refuse it. */
+  uncoveredResults?: 'flag' | 'refuse'
+  /** Pass levels raised above the rule set, by fit category (never lower). */
+  passLevelOverrides?: Partial<Record<'half' | 'full', number>>
 }
 
 export const organizations = pgTable('organizations', {

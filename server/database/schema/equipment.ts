@@ -1,0 +1,26 @@
+import { relations } from 'drizzle-orm'
+import { boolean, date, doublePrecision, index, pgTable, text, uniqueIndex, uuid } from 'drizzle-orm/pg-core'
+import { id, timestamps } from './columns'
+import { organizations, sites } from './organizations'
+
+/** Particle counters. Their sample flow sets the counted volume behind every fit factor. */
+export const counters = pgTable('counters', {
+  id: id(),
+  organizationId: uuid().notNull().references(() => organizations.id, { onDelete: 'cascade' }),
+  siteId: uuid().references(() => sites.id, { onDelete: 'set null' }),
+  serialNumber: text().notNull(),
+  description: text().notNull().default(''),
+  sampleFlowCm3PerMin: doublePrecision().notNull(),
+  /** After this date the counter's results are flagged; warned 30 days ahead. */
+  calibrationDueOn: date({ mode: 'string' }),
+  active: boolean().notNull().default(true),
+  ...timestamps
+}, table => [
+  index('counters_organization_idx').on(table.organizationId),
+  uniqueIndex('counters_serial_unique').on(table.organizationId, table.serialNumber)
+])
+
+export const countersRelations = relations(counters, ({ one }) => ({
+  organization: one(organizations, { fields: [counters.organizationId], references: [organizations.id] }),
+  site: one(sites, { fields: [counters.siteId], references: [sites.id] })
+}))
