@@ -1,0 +1,14 @@
+// jstat ships no types; this declares only the parts the computation module uses.
+declare module 'jstat' {
+  interface JStatStatic {
+    chisquare: {
+      inv(p: number, dof: number): number
+      cdf(x: number, dof: number): number
+    }
+    normal: {
+      inv(p: number, mean: number, sd: number): number
+    }
+  }
+  const jStat: JStatStatic
+  export default jStat
+}
