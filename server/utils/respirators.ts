@@ -1,0 +1,16 @@
+import { and, asc, eq } from 'drizzle-orm'
+
+export async function listRespiratorModels(organizationId: string, { includeRetired = false } = {}) {
+  const r = schema.respiratorModels
+  return useDb().select().from(r)
+    .where(and(eq(r.organizationId, organizationId), includeRetired ? undefined : eq(r.active, true)))
+    .orderBy(asc(r.make), asc(r.model))
+}
+
+/** One catalogue entry of the organization, or 404. */
+export async function findRespiratorModel(organizationId: string, id: string) {
+  const r = schema.respiratorModels
+  const [row] = await useDb().select().from(r).where(and(eq(r.organizationId, organizationId), eq(r.id, id)))
+  if (!row) throw createError({ statusCode: 404, statusMessage: 'No such respirator model in your catalogue.' })
+  return row
+}
