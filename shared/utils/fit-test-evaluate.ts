@@ -32,9 +32,13 @@ export function evaluateFitTest(input: EvaluationInput): Evaluation {
     })
     return { result, seriesIssues: parsed.issues }
   }
+  // An exercise that is performed but not counted (the grimace) may be left blank.
+  const notCounted = new Set(protocol.exercises.filter(e => !e.counted).map(e => e.key))
+  const exercises = entry.exercises.filter(e => !notCounted.has(e.exerciseKey)
+    || [e.ambientBefore, e.ambientAfter, e.ambientMean, e.inMask, e.inMaskCount].some(v => v !== null && v !== undefined))
   const result = computeFitTest({
     protocol,
-    exercises: entry.exercises,
+    exercises,
     wholeTestAmbient: entry.wholeTestAmbient,
     passLevel: input.passLevel,
     sampleFlowCm3PerMin: input.sampleFlowCm3PerMin
