@@ -17,7 +17,7 @@ export async function fitTestView(caller: Caller, row: FitTestRow) {
   const [revisions, card] = await Promise.all([listRevisions(caller.organizationId, row.recordId), findCard(caller.organizationId, row.recordId)])
   return {
     ...row,
-    seriesText: undefined,
+    seriesText: row.status === 'draft' ? row.seriesText : null,
     hasSeries: Boolean(row.seriesText),
     person: person ? { id: person.id, fullName: person.fullName, employeeNumber: person.employeeNumber, jobTitle: person.jobTitle } : null,
     site: { id: site.id, name: site.name, timeZone: site.timeZone },

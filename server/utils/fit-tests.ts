@@ -3,7 +3,7 @@ import { and, asc, desc, eq } from 'drizzle-orm'
 import type { z } from 'zod'
 import { findBuiltInProtocol, resolvePassLevel } from '#shared/utils/compute'
 import type { PassLevelRuleSetKey, Protocol } from '#shared/utils/compute'
-import { evaluateFitTest, localDate, nextDueDate, retestIntervalMonths } from '#shared/utils/fit-test-evaluate'
+import { localDate, retestIntervalMonths, storedFieldsOf } from '#shared/utils/fit-test-evaluate'
 import type { createFitTestSchema } from '#shared/utils/fit-test-schemas'
 import { PRE_TEST_ITEMS, unmetPreTestItems } from '#shared/utils/fit-test-schemas'
 
@@ -31,32 +31,16 @@ export function passLevelFor(org: Organization, respiratorClass: string) {
  * computed is ever read. Qualitative tests carry the recorded pass or fail.
  */
 export function computeStoredResult(row: Pick<FitTestRow, 'kind' | 'protocol' | 'entry' | 'seriesText' | 'sampleFlowCm3PerMin' | 'respiratorClass' | 'performedAt'>, org: Organization, timeZone: string) {
-  const testedOn = localDate(row.performedAt, timeZone)
-  const dueIfPassed = nextDueDate(testedOn, retestIntervalMonths(org.settings.retestIntervalMonths))
-  if (row.kind === 'qualitative') {
-    const passed = row.entry.qualitative ? row.entry.qualitative.result === 'pass' : null
-    return { evaluation: null, stored: { passLevel: null, overallFitFactor: null, overallIsLowerBound: null, passed, limitingExerciseKey: null, dueOn: passed ? dueIfPassed : null } }
-  }
-  const level = passLevelFor(org, row.respiratorClass)
-  const evaluation = evaluateFitTest({
-    protocol: row.protocol as Protocol,
+  return storedFieldsOf({
+    kind: row.kind,
+    protocol: row.protocol as Protocol | null,
     entry: row.entry,
     seriesText: row.seriesText,
-    passLevel: level.level,
-    sampleFlowCm3PerMin: row.sampleFlowCm3PerMin
+    sampleFlowCm3PerMin: row.sampleFlowCm3PerMin,
+    passLevel: row.kind === 'qualitative' ? null : passLevelFor(org, row.respiratorClass).level,
+    testedOn: localDate(row.performedAt, timeZone),
+    retestMonths: retestIntervalMonths(org.settings.retestIntervalMonths)
   })
-  const r = evaluation.result
-  return {
-    evaluation,
-    stored: {
-      passLevel: level.level,
-      overallFitFactor: r.ok ? r.overall.value : null,
-      overallIsLowerBound: r.ok ? r.overall.isLowerBound : null,
-      passed: r.ok ? r.pass : null,
-      limitingExerciseKey: r.ok ? r.limiting.exerciseKey : null,
-      dueOn: r.ok && r.pass ? dueIfPassed : null
-    }
-  }
 }
 
 /** Checks that every referenced row belongs to the caller's organization and fits together. */

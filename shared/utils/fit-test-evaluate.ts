@@ -4,6 +4,49 @@ import type { ComputeIssue, FitTestResult, Protocol } from './compute'
 import { computeFitTest, parseCountSeries, segmentsToFitTestInputs } from './compute'
 import type { FitTestEntry } from './fit-test-schemas'
 
+export interface StoredFields {
+  passLevel: number | null
+  overallFitFactor: number | null
+  overallIsLowerBound: boolean | null
+  passed: boolean | null
+  limitingExerciseKey: string | null
+  dueOn: string | null
+}
+
+/**
+ * The numbers kept beside a revision's raw inputs, for lists and queries only; every page
+ * recomputes from the inputs. `testedOn` is the test's calendar date in the site's time zone.
+ */
+export function storedFieldsOf(input: {
+  kind: 'quantitative' | 'qualitative'
+  protocol: Protocol | null
+  entry: FitTestEntry
+  seriesText?: string | null
+  sampleFlowCm3PerMin?: number | null
+  passLevel: number | null
+  testedOn: string
+  retestMonths: number
+}): { evaluation: Evaluation | null, stored: StoredFields } {
+  const dueIfPassed = nextDueDate(input.testedOn, input.retestMonths)
+  if (input.kind === 'qualitative' || !input.protocol || input.passLevel === null) {
+    const passed = input.entry.qualitative ? input.entry.qualitative.result === 'pass' : null
+    return { evaluation: null, stored: { passLevel: null, overallFitFactor: null, overallIsLowerBound: null, passed, limitingExerciseKey: null, dueOn: passed ? dueIfPassed : null } }
+  }
+  const evaluation = evaluateFitTest({ protocol: input.protocol, entry: input.entry, seriesText: input.seriesText, passLevel: input.passLevel, sampleFlowCm3PerMin: input.sampleFlowCm3PerMin })
+  const r = evaluation.result
+  return {
+    evaluation,
+    stored: {
+      passLevel: input.passLevel,
+      overallFitFactor: r.ok ? r.overall.value : null,
+      overallIsLowerBound: r.ok ? r.overall.isLowerBound : null,
+      passed: r.ok ? r.pass : null,
+      limitingExerciseKey: r.ok ? r.limiting.exerciseKey : null,
+      dueOn: r.ok && r.pass ? dueIfPassed : null
+    }
+  }
+}
+
 export interface EvaluationInput {
   protocol: Protocol
   entry: FitTestEntry

@@ -250,7 +250,7 @@ describe('the list and its CSV', () => {
     const fails = await tester.get(`/api/fit-tests?result=fail&personId=${program.personId}`)
     expect(fails.body.total).toBeGreaterThan(0)
     expect(fails.body.rows.every((r: { passed: boolean }) => r.passed === false)).toBe(true)
-    const csv = await tester.get(`/api/fit-tests/export.csv?result=fail&personId=${program.personId}`)
+    const csv = await tester.get(`/api/exports/fit-tests.csv?result=fail&personId=${program.personId}`)
     expect(csv.headers.get('content-type')).toMatch(/text\/csv/)
     const lines = String(csv.body).trim().split('\n')
     expect(lines[0]).toContain('overall fit factor')
