@@ -3,7 +3,7 @@ import withNuxt from './.nuxt/eslint.config.mjs'
 
 export default withNuxt(
   {
-    ignores: ['drizzle/**', '.data/**', '.output/**', 'test-results/**']
+    ignores: ['drizzle/**', '.data/**', '.output/**', 'test-results/**', '**/*.tmp.mjs']
   },
   {
     rules: {

@@ -1,4 +1,4 @@
-import { findBuiltInProtocol, findRespiratorClass } from '#shared/utils/compute'
+import { findBuiltInProtocol, findRespiratorClass, formatFitFactor } from '#shared/utils/compute'
 
 export function formatDate(iso: string | Date | null | undefined, timeZone?: string) {
   if (!iso) return '—'
@@ -20,11 +20,8 @@ export function respiratorClassLabel(key: string) {
   return findRespiratorClass(key)?.label ?? key
 }
 
-/** Fit factors as the trade reads them: whole numbers from 100 up, one decimal below; a lower bound as "> n". */
+/** A fit factor as the computation module writes it ("66.0", "> 2074"): cut, never rounded up. */
 export function formatFactor(value: number | null | undefined, isLowerBound = false) {
   if (value === null || value === undefined) return '—'
-  const digits = value >= 100 ? 0 : 1
-  const factor = 10 ** digits
-  const cut = Math.floor(value * factor) / factor
-  return `${isLowerBound ? '> ' : ''}${cut.toLocaleString('en-GB', { minimumFractionDigits: digits, maximumFractionDigits: digits })}`
+  return formatFitFactor({ value, isLowerBound })
 }
