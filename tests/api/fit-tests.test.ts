@@ -1,12 +1,13 @@
 import { execFileSync } from 'node:child_process'
-import { randomUUID } from 'node:crypto'
+import { randomUUID, createHash } from 'node:crypto'
 import { and, eq } from 'drizzle-orm'
 import { afterAll, beforeAll, describe, expect, it } from 'vitest'
 import * as schema from '../../server/database/schema'
 import { Client, signedIn } from '../support/http'
 import { closeTestDb, createOrganization, createProgram, testDb } from '../support/fixtures'
 import type { FixtureOrganization, FixtureProgram } from '../support/fixtures'
-import { allPreTestMet, standardEntry } from '../support/fit-test-inputs'
+import { STANDARD_PROTOCOL } from '../../shared/utils/compute'
+import { allPreTestMet, standardEntry, syntheticSeries } from '../support/fit-test-inputs'
 
 let org: FixtureOrganization
 let program: FixtureProgram
@@ -202,6 +203,43 @@ describe('the fit card', () => {
   it('is not issued for a failed test', async () => {
     const failed = await finishedTest([50, 50, 50, 50, 50, 50, 50])
     expect((await tester.get(`/api/fit-tests/${failed.id}/card`)).status).toBe(409)
+  })
+})
+
+describe('entering a pasted count series', () => {
+  it('segments the series by the protocol, keeps the upload and its SHA-256, and finishes', async () => {
+    // Every in-mask phase at ambient/100 → each exercise 100 → overall exactly 100 (harmonic mean of equal values).
+    const text = syntheticSeries(STANDARD_PROTOCOL, 5000, 100)
+    const created = await tester.post('/api/fit-tests', newTest({ entry: { mode: 'series' }, seriesText: text }))
+    expect(created.status).toBe(201)
+    expect(created.body.overallFitFactor).toBeCloseTo(100, 6)
+    expect(created.body.seriesSha256).toBe(createHash('sha256').update(text).digest('hex'))
+    const done = await tester.post(`/api/fit-tests/${created.body.id}/finish`, { version: 1 })
+    expect(done.body).toMatchObject({ status: 'finished', passed: true })
+  })
+
+  it('names the row and column of a bad reading and will not finish', async () => {
+    const text = syntheticSeries(STANDARD_PROTOCOL, 5000, 100).replace('\n20,', '\n20,oops,')
+    const created = await tester.post('/api/fit-tests', newTest({ entry: { mode: 'series' }, seriesText: text }))
+    expect(created.body.seriesIssues[0]).toMatchObject({ row: 22 })
+    expect(created.body.seriesIssues[0].message).toBeTruthy()
+  })
+})
+
+describe('qualitative tests', () => {
+  it('records the agent and the outcome, and a pass gets a card and a due date', async () => {
+    const created = await tester.post('/api/fit-tests', newTest({ kind: 'qualitative', protocolKey: 'qualitative-app-a', counterId: null, entry: { mode: 'qualitative', qualitative: { agent: 'saccharin', result: 'pass' } } }))
+    expect(created.status).toBe(201)
+    const done = await tester.post(`/api/fit-tests/${created.body.id}/finish`, { version: 1 })
+    expect(done.body).toMatchObject({ status: 'finished', kind: 'qualitative', passed: true, dueOn: '2027-11-20', overallFitFactor: null })
+    expect((await tester.fetch('GET', `/api/fit-tests/${done.body.id}/card`)).status).toBe(200)
+  })
+
+  it('will not finish without an outcome', async () => {
+    const created = await tester.post('/api/fit-tests', newTest({ kind: 'qualitative', protocolKey: 'qualitative-app-a', counterId: null }))
+    const reply = await tester.post(`/api/fit-tests/${created.body.id}/finish`, { version: 1 })
+    expect(reply.status).toBe(409)
+    expect(reply.body.statusMessage).toMatch(/agent and whether/)
   })
 })
 

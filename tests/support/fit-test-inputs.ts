@@ -1,4 +1,4 @@
-import { STANDARD_PROTOCOL } from '../../shared/utils/compute'
+import { protocolTimeline, STANDARD_PROTOCOL } from '../../shared/utils/compute'
 
 /**
  * Grid entries for the standard protocol whose counted exercises have the given fit factors
@@ -16,3 +16,19 @@ export function standardEntry(fitFactors: number[]) {
 }
 
 export const allPreTestMet = { medicalClearanceCurrent: true, nothingCrossingSeal: true, userSealCheckDone: true, comfortAcceptable: true }
+
+/**
+ * A 1 Hz count series (our long layout) for a protocol: every ambient phase reads `ambient`,
+ * every in-mask phase reads ambient / FF, purges read a value that must be ignored.
+ */
+export function syntheticSeries(protocol: import('../../shared/utils/compute').Protocol, ambient: number, fitFactor: number) {
+  const lines = ['t,channel,conc']
+  const timeline = protocolTimeline(protocol)
+  for (let t = 0; t < timeline.durationSeconds; t++) {
+    const phase = timeline.exercises.flatMap(e => e.phases).find(p => t >= p.startSeconds && t < p.endSeconds)
+    if (phase?.kind === 'ambient') lines.push(`${t},ambient,${ambient}`)
+    else if (phase?.kind === 'mask') lines.push(`${t},mask,${ambient / fitFactor}`)
+    else lines.push(`${t},mask,${ambient / 3}`)
+  }
+  return `${lines.join('\n')}\n`
+}
