@@ -3,10 +3,16 @@ import QRCode from 'qrcode'
 import { findBuiltInProtocol, formatFitFactor } from '#shared/utils/compute'
 import type { FitTestView } from './fit-test-view'
 
+const fonts = new Map<string, Buffer>()
+
 async function font(name: string): Promise<Buffer> {
+  const kept = fonts.get(name)
+  if (kept) return kept
   const raw = await useStorage('assets:fonts').getItemRaw(name)
   if (!raw) throw createError({ statusCode: 500, statusMessage: 'The card font is missing from the server build.' })
-  return Buffer.from(raw as ArrayBuffer)
+  const buffer = Buffer.from(raw as ArrayBuffer)
+  fonts.set(name, buffer)
+  return buffer
 }
 
 export function verificationUrl(token: string) {
