@@ -94,4 +94,3 @@ describe('the app while PostgreSQL is down', () => {
     expect(after.status).toBe(401)
   })
 })
-

@@ -1,3 +1,4 @@
+/* eslint-disable @typescript-eslint/no-explicit-any -- replies are parsed JSON of many shapes; each test reads the fields it asserts */
 import { baseUrl } from './env'
 
 export interface Reply<T = any> {
