@@ -3,6 +3,7 @@ import { DEMO_ORGANIZATIONS, DEMO_PASSWORD, demoEmail } from './demo-accounts.mj
 import type { SeedDb } from './db'
 import { schema } from './db'
 import { hashPassword } from './hash'
+import { seedEquipment } from './equipment'
 
 export interface SeededOrganization {
   id: string
@@ -35,5 +36,6 @@ export async function seedDemo(db: SeedDb, onProgress: (text: string) => void = 
     })
     seeded.push(result)
   }
+  await seedEquipment(db, seeded)
   return seeded
 }

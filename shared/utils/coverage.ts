@@ -128,7 +128,7 @@ export function decideCoverage(result: CoverageResult, checks: readonly Candidat
   return {
     covered: true,
     reason: 'covered',
-    message: `Covered by the readiness check passed at ${when} (site time) the same day.`,
+    message: `Readiness check passed at ${when} (site time), earlier the same day.`,
     checkId: last.id,
     completedAt: last.completedAt.toISOString()
   }
