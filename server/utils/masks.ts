@@ -41,7 +41,11 @@ function unitQuery() {
 }
 
 type UnitRow = Awaited<ReturnType<typeof unitQuery>>[number]
-const withDue = (row: UnitRow) => ({ ...row, headformDueOn: row.state === 'retired' ? null : headformDueOn(row.lastHeadformAt, row.headformRetestDays) })
+// A held unit needs a passing headform test before it returns to service: due now.
+const withDue = (row: UnitRow) => ({
+  ...row,
+  headformDueOn: row.state === 'retired' ? null : row.state === 'held' ? headformDueOn(null, 0) : headformDueOn(row.lastHeadformAt, row.headformRetestDays)
+})
 
 export async function listMaskUnits(organizationId: string, query: z.output<typeof listMaskUnitsQuerySchema>) {
   const u = schema.maskUnits
