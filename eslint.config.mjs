@@ -11,5 +11,12 @@ export default withNuxt(
       'vue/max-attributes-per-line': 'off',
       'vue/singleline-html-element-content-newline': 'off'
     }
+  },
+  {
+    // Tests read JSON replies whose shape each assertion states.
+    files: ['tests/**'],
+    rules: {
+      '@typescript-eslint/no-explicit-any': 'off'
+    }
   }
 )

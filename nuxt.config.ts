@@ -1,3 +1,5 @@
+import { fileURLToPath } from 'node:url'
+
 // Sealwright: Nuxt 4 app with `app/` as srcDir, server routes under `server/`, pure computation in `shared/`.
 export default defineNuxtConfig({
   modules: ['@nuxtjs/tailwindcss', '@pinia/nuxt', 'nuxt-auth-utils', '@nuxt/eslint'],
@@ -41,7 +43,12 @@ export default defineNuxtConfig({
   compatibilityDate: '2026-11-01',
   nitro: {
     errorHandler: '~~/server/error-handler.ts',
-    output: process.env.SEALWRIGHT_OUTPUT_DIR ? { dir: process.env.SEALWRIGHT_OUTPUT_DIR } : undefined
+    // The fit card PDF embeds the same IBM Plex Sans the pages use, shipped with the server.
+    serverAssets: [{
+      baseName: 'fonts',
+      dir: fileURLToPath(new URL('./node_modules/@fontsource/ibm-plex-sans/files', import.meta.url)),
+      pattern: 'ibm-plex-sans-latin-{400,600}-normal.woff'
+    }]
   },
   typescript: {
     strict: true

@@ -10,11 +10,15 @@ export interface NavItem {
 
 export const NAV_ITEMS: NavItem[] = [
   { to: '/', label: 'Overview', roles: [] },
+  { to: '/fit-tests', label: 'Fit tests', roles: ['tester', 'reviewer', 'trainer'] },
+  { to: '/people', label: 'People', roles: ['tester', 'reviewer', 'trainer'] },
+  { to: '/fit-tests', label: 'My fit tests', roles: ['wearer'] },
   { to: '/equipment/checks', label: 'Readiness checks', roles: ['tester', 'reviewer', 'trainer'] },
   { to: '/equipment/headform', label: 'Headform test', roles: ['tester'] },
   { to: '/equipment/masks', label: 'Mask units', roles: ['tester', 'reviewer', 'trainer'] },
   { to: '/equipment/counters', label: 'Counters and rigs', roles: ['tester', 'reviewer', 'trainer'] },
   { to: '/equipment/templates', label: 'Check templates', roles: ['tester', 'reviewer', 'trainer'] },
+  { to: '/admin/catalogue', label: 'Catalogue', roles: ['admin'] },
   { to: '/admin/users', label: 'Users', roles: ['admin'] },
   { to: '/admin/outbox', label: 'Outbox', roles: ['admin'] },
   { to: '/admin/settings', label: 'Settings', roles: ['admin'] }
@@ -22,5 +26,7 @@ export const NAV_ITEMS: NavItem[] = [
 
 export function navFor(role: Role | undefined): NavItem[] {
   if (!role) return []
-  return NAV_ITEMS.filter(item => item.roles.length === 0 || roleAllows(role, item.roles))
+  const items = NAV_ITEMS.filter(item => item.roles.length === 0 || roleAllows(role, item.roles))
+  // "My fit tests" is the wearer's name for the same page; everyone else sees "Fit tests".
+  return items.filter(item => role === 'wearer' ? item.label !== 'Fit tests' : item.label !== 'My fit tests')
 }

@@ -2,6 +2,7 @@
 import { DEMO_ORGANIZATIONS, DEMO_PASSWORD, demoEmail } from './demo-accounts.mjs'
 import type { SeedDb } from './db'
 import { schema } from './db'
+import { seedFitTests } from './fit-tests'
 import { hashPassword } from './hash'
 import { seedEquipment } from './equipment'
 
@@ -37,5 +38,6 @@ export async function seedDemo(db: SeedDb, onProgress: (text: string) => void = 
     seeded.push(result)
   }
   await seedEquipment(db, seeded)
+  await seedFitTests(db, seeded, onProgress)
   return seeded
 }

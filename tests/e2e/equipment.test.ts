@@ -19,8 +19,15 @@ function passingFrom(accepted: string) {
   return n ? n[0] : '0'
 }
 
+/** Opens a page and waits until Vue has hydrated it, so a chosen option reaches the form's state. */
+async function open(page: Page, path: string) {
+  await page.goto(`${baseUrl}${path}`)
+  await page.waitForFunction(() => Boolean((document.querySelector('#__nuxt') as { __vue_app__?: unknown } | null)?.__vue_app__))
+  await page.waitForLoadState('networkidle')
+}
+
 async function startRigCheck(page: Page, maskType: string) {
-  await page.goto(`${baseUrl}/equipment/checks`)
+  await open(page, '/equipment/checks')
   await page.locator('#start-target').selectOption({ label: RIG })
   await page.locator('#start-mask-type').selectOption({ label: maskType })
   await page.getByRole('button', { name: 'Start check' }).click()
@@ -71,6 +78,7 @@ describe('the fit tester\'s bench day at Harrow Point', () => {
         await screenshot(page, 'runner-step-failed-then-retry')
         // A reload loses nothing: the check resumes at the same step with its history.
         await page.reload()
+        await page.waitForFunction(() => Boolean((document.querySelector('#__nuxt') as { __vue_app__?: unknown } | null)?.__vue_app__))
         await page.getByTestId('runner-step').getByRole('heading', { name: 'Hood aerosol level' }).waitFor()
         expect(await page.getByTestId('step-list').getByText(/18000 — fail/).count()).toBe(1)
       }
@@ -82,7 +90,7 @@ describe('the fit tester\'s bench day at Harrow Point', () => {
     expect(await page.getByTestId('step-list').getByText(/attempt 2/).count()).toBe(1)
     await screenshot(page, 'runner-summary-passed')
 
-    await page.goto(`${baseUrl}/equipment/headform`)
+    await open(page, '/equipment/headform')
     await page.locator('#hf-unit').selectOption({ label: 'HP-MU-0002 — Quillon Protective QP-12 CBRN full facepiece (CBRN full facepiece)' })
     await page.locator('#hf-outside').fill('25000')
     await page.locator('#hf-inside').fill('40')
@@ -124,7 +132,7 @@ describe('the fit tester\'s bench day at Harrow Point', () => {
     const width = await page.evaluate(() => document.documentElement.scrollWidth)
     expect(width).toBeLessThanOrEqual(360)
 
-    await page.goto(`${baseUrl}/equipment/headform`)
+    await open(page, '/equipment/headform')
     await page.locator('#hf-unit').selectOption({ label: 'HP-MU-0027 — Ostler Breathing OB-2 breathing-apparatus facepiece (Breathing-apparatus facepiece)' })
     expect(await page.getByLabel(/Drink tube cap/).count()).toBe(0)
     expect(await page.getByLabel(/Exhalation valve seats/).count()).toBe(0)

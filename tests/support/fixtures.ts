@@ -1,6 +1,7 @@
 import { randomUUID } from 'node:crypto'
 import { Hash } from '@adonisjs/hash'
 import { Scrypt } from '@adonisjs/hash/drivers/scrypt'
+import { eq } from 'drizzle-orm'
 import { drizzle } from 'drizzle-orm/node-postgres'
 import pg from 'pg'
 import * as schema from '../../server/database/schema'
@@ -52,4 +53,25 @@ export async function createOrganization(label = 'Fixture'): Promise<FixtureOrga
   }))).returning()
   const users = Object.fromEntries(rows.map(u => [u.role, { id: u.id, email: u.email, password: FIXTURE_PASSWORD, role: u.role }])) as Record<Role, FixtureUser>
   return { id: org!.id, name, users }
+}
+
+export interface FixtureProgram {
+  siteId: string
+  personId: string
+  halfMaskId: string
+  fullFacepieceId: string
+  counterId: string
+}
+
+/** Roster, catalogue and counter rows for one organization: invented test data. */
+export async function createProgram(org: FixtureOrganization, options: { wearerUserId?: string } = {}): Promise<FixtureProgram> {
+  const db = testDb()
+  const [site] = await db.select().from(schema.sites).where(eq(schema.sites.organizationId, org.id))
+  const [person] = await db.insert(schema.people).values({ organizationId: org.id, siteId: site!.id, fullName: 'Rowan Testwell', employeeNumber: `E-${randomUUID().slice(0, 6)}`, medicalClearanceStatus: 'cleared', medicalClearanceOn: '2026-01-15', userId: options.wearerUserId ?? null }).returning()
+  const [half, full] = await db.insert(schema.respiratorModels).values([
+    { organizationId: org.id, make: 'Fixture Safety', model: 'FX-2 half mask', respiratorClass: 'elastomeric-half-mask', sizes: ['S', 'M', 'L'] },
+    { organizationId: org.id, make: 'Fixture Safety', model: 'FX-9 full facepiece', respiratorClass: 'elastomeric-full-facepiece', sizes: ['M', 'L'] }
+  ]).returning()
+  const [counter] = await db.insert(schema.counters).values({ organizationId: org.id, siteId: site!.id, serialNumber: `FXC-${randomUUID().slice(0, 6)}`, description: 'Fixture counter', sampleFlowCm3PerMin: 100, calibrationDueOn: '2027-06-30' }).returning()
+  return { siteId: site!.id, personId: person!.id, halfMaskId: half!.id, fullFacepieceId: full!.id, counterId: counter!.id }
 }

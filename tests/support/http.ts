@@ -1,4 +1,3 @@
-/* eslint-disable @typescript-eslint/no-explicit-any -- replies are parsed JSON of many shapes; each test reads the fields it asserts */
 import { baseUrl } from './env'
 
 export interface Reply<T = any> {
@@ -22,7 +21,8 @@ export class Client {
     this.address = address ?? `10.${process.pid % 250}.${Math.floor(addressCounter / 250)}.${addressCounter % 250}`
   }
 
-  async request<T = any>(method: string, path: string, body?: unknown): Promise<Reply<T>> {
+  /** The raw response (for PDFs and other binary bodies), with this client's cookies. */
+  async fetch(method: string, path: string, body?: unknown): Promise<Response> {
     const headers: Record<string, string> = { 'x-forwarded-for': this.address, 'accept': 'application/json' }
     if (body !== undefined) headers['content-type'] = 'application/json'
     if (this.cookies.size) headers.cookie = [...this.cookies].map(([k, v]) => `${k}=${v}`).join('; ')
@@ -34,6 +34,11 @@ export class Client {
       if (/max-age=0|expires=thu, 01 jan 1970/i.test(line) || value === '') this.cookies.delete(name!.trim())
       else this.cookies.set(name!.trim(), value)
     }
+    return response
+  }
+
+  async request<T = any>(method: string, path: string, body?: unknown): Promise<Reply<T>> {
+    const response = await this.fetch(method, path, body)
     const text = await response.text()
     let parsed: unknown = text
     try {

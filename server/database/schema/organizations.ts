@@ -1,5 +1,6 @@
 import { relations } from 'drizzle-orm'
 import { index, jsonb, pgTable, text, uniqueIndex, uuid } from 'drizzle-orm/pg-core'
+import type { PassLevelOverrides } from '../../../shared/utils/compute'
 import { id, timestamps } from './columns'
 
 export interface OrganizationSettings {
@@ -7,8 +8,8 @@ export interface OrganizationSettings {
   retestIntervalMonths?: number
   /** What to do with a result no passing readiness check covers: only flag it, or refuse it. */
   uncoveredResults?: 'flag' | 'refuse'
-  /** Pass levels raised above the rule set, by fit category (never lower). */
-  passLevelOverrides?: Partial<Record<'half' | 'full', number>>
+  /** Pass levels raised above the rule set (never lower), as the computation module reads them. */
+  passLevelOverrides?: PassLevelOverrides
 }
 
 export const organizations = pgTable('organizations', {

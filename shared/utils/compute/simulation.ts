@@ -13,8 +13,8 @@ import { protocolTimeline } from './protocols'
 
 export type RandomSource = () => number
 
-// mulberry32: a small, fast 32-bit seeded generator; uniform in [0, 1). Public-domain
-// algorithm (Tommy Ettinger, 2017, from memory). Good enough for teaching, not for cryptography.
+// mulberry32: a small, fast, public-domain 32-bit seeded generator (constants from memory);
+// uniform in [0, 1). Good enough for teaching, not for cryptography.
 export function mulberry32(seed: number): RandomSource {
   let a = seed >>> 0
   return () => {

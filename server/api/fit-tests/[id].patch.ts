@@ -1,0 +1,38 @@
+import { and, eq } from 'drizzle-orm'
+import { updateFitTestSchema } from '#shared/utils/fit-test-schemas'
+import { idParamSchema } from '#shared/utils/user-schemas'
+
+export default defineEventHandler(async (event) => {
+  const caller = await requireRole(event, 'tester')
+  const { id } = parseParams(event, idParamSchema)
+  const { version, ...changes } = await parseBody(event, updateFitTestSchema)
+  const before = await findFitTest(caller.organizationId, id)
+  assertDraft(before)
+  assertVersion(before, version)
+
+  const counterId = changes.counterId === undefined ? before.counterId : changes.counterId
+  const refs = await resolveReferences(caller.organizationId, { ...before, counterId, respiratorSize: changes.respiratorSize ?? before.respiratorSize })
+  const next = {
+    ...before,
+    ...changes,
+    counterId,
+    sampleFlowCm3PerMin: refs.counter?.sampleFlowCm3PerMin ?? null,
+    performedAt: changes.performedAt ? new Date(changes.performedAt) : before.performedAt,
+    seriesText: changes.seriesText === undefined ? before.seriesText : changes.seriesText
+  }
+  const { stored } = computeStoredResult(next, await findOrganization(caller.organizationId), refs.site.timeZone)
+  const t = schema.fitTests
+  const saved = await useDb().transaction(async (tx) => {
+    const [row] = await tx.update(t).set({
+      respiratorSize: next.respiratorSize, counterId: next.counterId, sampleFlowCm3PerMin: next.sampleFlowCm3PerMin,
+      performedAt: next.performedAt, preTest: next.preTest, entry: next.entry,
+      seriesText: next.seriesText, seriesSha256: sha256OrNull(next.seriesText), ...stored, version: before.version + 1
+    }).where(and(eq(t.id, id), eq(t.version, version), eq(t.status, 'draft'))).returning()
+    if (!row) return null
+    await writeAudit(tx, caller, { entityType: 'fit-test', entityId: id, action: 'draft-saved', before: { version: before.version }, after: { version: row.version, ...changes, seriesText: changes.seriesText ? `(${changes.seriesText.length} characters)` : changes.seriesText } })
+    return row
+  })
+  // Another save won the race between our read and our write.
+  if (!saved) throw staleDraftError()
+  return fitTestView(caller, saved)
+})

@@ -1,0 +1,30 @@
+import { and, eq, ne } from 'drizzle-orm'
+import { finishFitTestSchema } from '#shared/utils/fit-test-schemas'
+import { idParamSchema } from '#shared/utils/user-schemas'
+
+export default defineEventHandler(async (event) => {
+  const caller = await requireRole(event, 'tester')
+  const { id } = parseParams(event, idParamSchema)
+  const { version } = await parseBody(event, finishFitTestSchema)
+  const row = await findFitTest(caller.organizationId, id)
+  assertDraft(row)
+  assertVersion(row, version)
+  const org = await findOrganization(caller.organizationId)
+  const site = await findSite(caller.organizationId, row.siteId)
+  const { evaluation, stored } = computeStoredResult(row, org, site.timeZone)
+  const firstError = evaluation?.result.issues.find(i => i.severity === 'error')?.message ?? evaluation?.seriesIssues.find(i => i.severity === 'error')?.message
+  assertReadyToFinish(row, evaluation ? evaluation.result.ok : true, firstError)
+
+  const t = schema.fitTests
+  await useDb().transaction(async (tx) => {
+    const [done] = await tx.update(t).set({ ...stored, status: 'finished', finishedAt: new Date(), finishedByUserId: caller.id, version: row.version + 1 })
+      .where(and(eq(t.id, id), eq(t.version, version), eq(t.status, 'draft'))).returning({ id: t.id })
+    if (!done) throw staleDraftError()
+    // A corrected revision replaces the one it corrects; the earlier stays readable as superseded.
+    await tx.update(t).set({ status: 'superseded' })
+      .where(and(eq(t.recordId, row.recordId), ne(t.id, id), eq(t.status, 'finished')))
+    await ensureCard(tx, caller.organizationId, row.recordId)
+    await writeAudit(tx, caller, { entityType: 'fit-test', entityId: id, action: 'finished', after: { revision: row.revision, overallFitFactor: stored.overallFitFactor, passed: stored.passed, passLevel: stored.passLevel, dueOn: stored.dueOn } })
+  })
+  return fitTestView(caller, await findFitTest(caller.organizationId, id))
+})

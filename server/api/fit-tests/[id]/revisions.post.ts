@@ -1,0 +1,28 @@
+import { and, eq } from 'drizzle-orm'
+import { reasonSchema } from '#shared/utils/fit-test-schemas'
+import { idParamSchema } from '#shared/utils/user-schemas'
+
+/** Starts a correction: a new draft revision copied from the finished one, with the reason. */
+export default defineEventHandler(async (event) => {
+  const caller = await requireRole(event, 'tester')
+  const { id } = parseParams(event, idParamSchema)
+  const { reason } = await parseBody(event, reasonSchema)
+  const row = await findFitTest(caller.organizationId, id)
+  if (row.status !== 'finished') {
+    throw createError({ statusCode: 409, statusMessage: row.status === 'draft' ? 'This is still a draft: edit it directly.' : 'Only the current finished revision can be corrected.' })
+  }
+  const t = schema.fitTests
+  const [openDraft] = await useDb().select({ id: t.id }).from(t).where(and(eq(t.recordId, row.recordId), eq(t.status, 'draft')))
+  if (openDraft) {
+    throw createError({ statusCode: 409, statusMessage: 'A correction of this record is already in progress.', data: { draftId: openDraft.id } })
+  }
+  const revisions = await listRevisions(caller.organizationId, row.recordId)
+  const { id: _id, createdAt: _c, updatedAt: _u, finishedAt: _f, finishedByUserId: _fb, idempotencyKey: _k, ...copy } = row
+  const created = await useDb().transaction(async (tx) => {
+    const [draft] = await tx.insert(t).values({ ...copy, revision: Math.max(...revisions.map(r => r.revision)) + 1, revisionReason: reason, status: 'draft', version: 1, testerUserId: caller.id }).returning()
+    await writeAudit(tx, caller, { entityType: 'fit-test', entityId: draft!.id, action: 'revision-started', before: { revisionOf: row.id, revision: row.revision }, after: { revision: draft!.revision, reason } })
+    return draft!
+  })
+  setResponseStatus(event, 201)
+  return fitTestView(caller, created)
+})

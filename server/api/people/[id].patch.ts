@@ -1,0 +1,21 @@
+import { and, eq } from 'drizzle-orm'
+import { updatePersonSchema } from '#shared/utils/person-schemas'
+import { idParamSchema } from '#shared/utils/user-schemas'
+
+export default defineEventHandler(async (event) => {
+  const caller = await requireRole(event, 'tester')
+  const { id } = parseParams(event, idParamSchema)
+  const changes = await parseBody(event, updatePersonSchema)
+  const before = await findPerson(caller.organizationId, id)
+  await assertSiteOf(caller.organizationId, changes.siteId)
+  const p = schema.people
+  return useDb().transaction(async (tx) => {
+    const [row] = await tx.update(p).set(changes).where(and(eq(p.organizationId, caller.organizationId), eq(p.id, id))).returning()
+      .catch((error: { cause?: { code?: string } }) => {
+        if (error.cause?.code === '23505') throw duplicateEmployeeNumber(changes.employeeNumber ?? '')
+        throw error
+      })
+    await writeAudit(tx, caller, { entityType: 'person', entityId: id, action: 'updated', before, after: changes })
+    return row!
+  })
+})

@@ -1,0 +1,6 @@
+import { listPeopleQuerySchema } from '#shared/utils/person-schemas'
+
+export default defineEventHandler(async (event) => {
+  const caller = await requireRole(event, 'tester', 'reviewer', 'trainer')
+  return listPeople(caller.organizationId, parseQuery(event, listPeopleQuerySchema))
+})

@@ -1,0 +1,14 @@
+import { respiratorModelSchema } from '#shared/utils/respirator-schemas'
+
+export default defineEventHandler(async (event) => {
+  const caller = await requireRole(event, 'admin')
+  const input = await parseBody(event, respiratorModelSchema)
+  const created = await useDb().transaction(async (tx) => {
+    const [row] = await tx.insert(schema.respiratorModels).values({ ...input, organizationId: caller.organizationId }).onConflictDoNothing().returning()
+    if (!row) throw createError({ statusCode: 409, statusMessage: `${input.make} ${input.model} is already in the catalogue.`, data: { fieldErrors: { model: 'Already in the catalogue.' } } })
+    await writeAudit(tx, caller, { entityType: 'respirator-model', entityId: row.id, action: 'created', after: input })
+    return row
+  })
+  setResponseStatus(event, 201)
+  return created
+})

@@ -1,0 +1,91 @@
+import { relations } from 'drizzle-orm'
+import { boolean, date, doublePrecision, index, integer, jsonb, pgTable, text, timestamp, uniqueIndex, uuid } from 'drizzle-orm/pg-core'
+import type { FitTestEntry, PreTestChecks } from '../../../shared/utils/fit-test-schemas'
+import type { Protocol } from '../../../shared/utils/compute'
+import { id, timestamps } from './columns'
+import { counters } from './equipment'
+import { organizations, sites } from './organizations'
+import { people } from './people'
+import { respiratorModels } from './respirators'
+import { users } from './users'
+
+export const FIT_TEST_STATUSES = ['draft', 'finished', 'superseded', 'withdrawn'] as const
+
+/**
+ * One revision of a fit-test record. All revisions of a record share `recordId`; a finished
+ * revision is never edited — a correction is a new revision (with a reason) that supersedes it.
+ * Holds every field 29 CFR 1910.134(m)(2) asks for. The raw inputs (`entry`) are the truth;
+ * overall/pass/limiting are recomputed by the server from them and kept only for queries.
+ */
+export const fitTests = pgTable('fit_tests', {
+  id: id(),
+  organizationId: uuid().notNull().references(() => organizations.id, { onDelete: 'cascade' }),
+  recordId: uuid().notNull(),
+  revision: integer().notNull().default(1),
+  revisionReason: text(),
+  status: text().$type<typeof FIT_TEST_STATUSES[number]>().notNull().default('draft'),
+  /** Optimistic lock for drafts: every save must send the version it read. */
+  version: integer().notNull().default(1),
+  idempotencyKey: text(),
+
+  personId: uuid().notNull().references(() => people.id, { onDelete: 'restrict' }),
+  siteId: uuid().notNull().references(() => sites.id, { onDelete: 'restrict' }),
+  testerUserId: uuid().notNull().references(() => users.id, { onDelete: 'restrict' }),
+  counterId: uuid().references(() => counters.id, { onDelete: 'restrict' }),
+  respiratorModelId: uuid().notNull().references(() => respiratorModels.id, { onDelete: 'restrict' }),
+  /** Make, model, style and size as they were on the day: the record must not change if the catalogue does. */
+  respiratorMake: text().notNull(),
+  respiratorModel: text().notNull(),
+  respiratorClass: text().notNull(),
+  respiratorSize: text().notNull(),
+
+  kind: text().$type<'quantitative' | 'qualitative'>().notNull().default('quantitative'),
+  protocolKey: text().notNull(),
+  protocol: jsonb().$type<Protocol>(),
+  /** Counter flow at the time of the test, cm³/min. */
+  sampleFlowCm3PerMin: doublePrecision(),
+  performedAt: timestamp({ withTimezone: true }).notNull(),
+  preTest: jsonb().$type<PreTestChecks>().notNull(),
+  entry: jsonb().$type<FitTestEntry>().notNull(),
+  /** The original pasted or uploaded count series, byte for byte, and its SHA-256. */
+  seriesText: text(),
+  seriesSha256: text(),
+
+  passLevel: doublePrecision(),
+  overallFitFactor: doublePrecision(),
+  overallIsLowerBound: boolean(),
+  passed: boolean(),
+  limitingExerciseKey: text(),
+  dueOn: date({ mode: 'string' }),
+  finishedAt: timestamp({ withTimezone: true }),
+  finishedByUserId: uuid().references(() => users.id, { onDelete: 'restrict' }),
+  withdrawnReason: text(),
+  ...timestamps
+}, table => [
+  index('fit_tests_organization_performed_idx').on(table.organizationId, table.performedAt),
+  index('fit_tests_person_idx').on(table.personId),
+  index('fit_tests_record_idx').on(table.recordId),
+  uniqueIndex('fit_tests_record_revision_unique').on(table.recordId, table.revision),
+  uniqueIndex('fit_tests_idempotency_unique').on(table.organizationId, table.idempotencyKey)
+])
+
+/** A wearer's fit card: an unguessable token that a public page verifies. One per record. */
+export const fitCards = pgTable('fit_cards', {
+  id: id(),
+  organizationId: uuid().notNull().references(() => organizations.id, { onDelete: 'cascade' }),
+  recordId: uuid().notNull(),
+  token: text().notNull(),
+  createdAt: timestamp({ withTimezone: true }).notNull().defaultNow()
+}, table => [
+  uniqueIndex('fit_cards_token_unique').on(table.token),
+  uniqueIndex('fit_cards_record_unique').on(table.recordId)
+])
+
+export const fitTestsRelations = relations(fitTests, ({ one }) => ({
+  organization: one(organizations, { fields: [fitTests.organizationId], references: [organizations.id] }),
+  person: one(people, { fields: [fitTests.personId], references: [people.id] }),
+  site: one(sites, { fields: [fitTests.siteId], references: [sites.id] }),
+  tester: one(users, { fields: [fitTests.testerUserId], references: [users.id] }),
+  counter: one(counters, { fields: [fitTests.counterId], references: [counters.id] }),
+  respirator: one(respiratorModels, { fields: [fitTests.respiratorModelId], references: [respiratorModels.id] })
+}))

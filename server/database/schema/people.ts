@@ -1,0 +1,34 @@
+import { relations } from 'drizzle-orm'
+import { boolean, date, index, pgTable, text, uniqueIndex, uuid } from 'drizzle-orm/pg-core'
+import { id, timestamps } from './columns'
+import { organizations, sites } from './organizations'
+import { users } from './users'
+
+export const MEDICAL_CLEARANCE_STATUSES = ['cleared', 'cleared-with-limits', 'pending', 'not-cleared'] as const
+
+/** The people a program fits: respirator wearers. A wearer account may be linked to one. */
+export const people = pgTable('people', {
+  id: id(),
+  organizationId: uuid().notNull().references(() => organizations.id, { onDelete: 'cascade' }),
+  siteId: uuid().references(() => sites.id, { onDelete: 'set null' }),
+  userId: uuid().references(() => users.id, { onDelete: 'set null' }),
+  fullName: text().notNull(),
+  employeeNumber: text(),
+  jobTitle: text(),
+  email: text(),
+  medicalClearanceOn: date({ mode: 'string' }),
+  medicalClearanceStatus: text().$type<typeof MEDICAL_CLEARANCE_STATUSES[number]>().notNull().default('pending'),
+  notes: text(),
+  active: boolean().notNull().default(true),
+  ...timestamps
+}, table => [
+  index('people_organization_idx').on(table.organizationId),
+  uniqueIndex('people_employee_number_unique').on(table.organizationId, table.employeeNumber),
+  index('people_user_idx').on(table.userId)
+])
+
+export const peopleRelations = relations(people, ({ one }) => ({
+  organization: one(organizations, { fields: [people.organizationId], references: [organizations.id] }),
+  site: one(sites, { fields: [people.siteId], references: [sites.id] }),
+  user: one(users, { fields: [people.userId], references: [users.id] })
+}))

@@ -1,0 +1,90 @@
+import { and, asc, count, desc, eq, gte, ilike, isNotNull, lt, ne, or, sql } from 'drizzle-orm'
+import type { SQL } from 'drizzle-orm'
+import type { ListFitTestsQuery } from '#shared/utils/fit-test-schemas'
+
+const t = schema.fitTests
+const p = schema.people
+
+function conditions(organizationId: string, q: Omit<ListFitTestsQuery, 'page' | 'pageSize' | 'sort' | 'dir'>, onlyPersonUserId?: string) {
+  const where: (SQL | undefined)[] = [
+    eq(t.organizationId, organizationId),
+    // One line per record: superseded revisions and open corrections stay on the record's own page.
+    ne(t.status, 'superseded'),
+    or(ne(t.status, 'draft'), eq(t.revision, 1))
+  ]
+  if (onlyPersonUserId) where.push(eq(p.userId, onlyPersonUserId))
+  if (q.personId) where.push(eq(t.personId, q.personId))
+  if (q.siteId) where.push(eq(t.siteId, q.siteId))
+  if (q.kind) where.push(eq(t.kind, q.kind))
+  if (q.result === 'pass') where.push(eq(t.status, 'finished'), eq(t.passed, true))
+  if (q.result === 'fail') where.push(eq(t.status, 'finished'), eq(t.passed, false))
+  if (q.result === 'draft') where.push(eq(t.status, 'draft'))
+  if (q.result === 'withdrawn') where.push(eq(t.status, 'withdrawn'))
+  if (q.from) where.push(gte(t.performedAt, new Date(`${q.from}T00:00:00Z`)))
+  if (q.to) where.push(lt(t.performedAt, sql`(${q.to}::date + 1)::timestamptz`))
+  if (q.q) {
+    const like = `%${q.q.replace(/[%_\\]/g, m => `\\${m}`)}%`
+    where.push(or(ilike(p.fullName, like), ilike(p.employeeNumber, like), ilike(t.respiratorModel, like), ilike(t.respiratorMake, like)))
+  }
+  return and(...where)
+}
+
+const columns = {
+  id: t.id,
+  recordId: t.recordId,
+  revision: t.revision,
+  status: t.status,
+  kind: t.kind,
+  performedAt: t.performedAt,
+  personId: t.personId,
+  personName: p.fullName,
+  employeeNumber: p.employeeNumber,
+  siteName: schema.sites.name,
+  respiratorMake: t.respiratorMake,
+  respiratorModel: t.respiratorModel,
+  respiratorClass: t.respiratorClass,
+  respiratorSize: t.respiratorSize,
+  protocolKey: t.protocolKey,
+  counterSerial: schema.counters.serialNumber,
+  overallFitFactor: t.overallFitFactor,
+  overallIsLowerBound: t.overallIsLowerBound,
+  passLevel: t.passLevel,
+  passed: t.passed,
+  limitingExerciseKey: t.limitingExerciseKey,
+  dueOn: t.dueOn,
+  testerName: schema.users.displayName
+}
+
+function baseQuery() {
+  return useDb().select(columns).from(t)
+    .innerJoin(p, eq(p.id, t.personId))
+    .innerJoin(schema.sites, eq(schema.sites.id, t.siteId))
+    .innerJoin(schema.users, eq(schema.users.id, t.testerUserId))
+    .leftJoin(schema.counters, eq(schema.counters.id, t.counterId))
+}
+
+export async function listFitTests(organizationId: string, q: ListFitTestsQuery, onlyPersonUserId?: string) {
+  const where = conditions(organizationId, q, onlyPersonUserId)
+  const order = q.dir === 'asc' ? asc : desc
+  const sortColumn = q.sort === 'person' ? p.fullName : q.sort === 'overallFitFactor' ? t.overallFitFactor : t.performedAt
+  const [rows, [total]] = await Promise.all([
+    baseQuery().where(where).orderBy(order(sortColumn), desc(t.performedAt)).limit(q.pageSize).offset((q.page - 1) * q.pageSize),
+    useDb().select({ n: count() }).from(t).innerJoin(p, eq(p.id, t.personId)).where(where)
+  ])
+  return { rows, total: total?.n ?? 0, page: q.page, pageSize: q.pageSize }
+}
+
+export async function exportFitTests(organizationId: string, q: ListFitTestsQuery) {
+  return baseQuery().where(conditions(organizationId, q)).orderBy(desc(t.performedAt)).limit(50_000)
+}
+
+/** The last passing finished test of each person: their current respirator and next due date. */
+export async function latestPassByPerson(organizationId: string) {
+  const rows = await useDb().selectDistinctOn([t.personId], {
+    personId: t.personId, dueOn: t.dueOn, performedAt: t.performedAt,
+    respiratorMake: t.respiratorMake, respiratorModel: t.respiratorModel, respiratorSize: t.respiratorSize
+  }).from(t)
+    .where(and(eq(t.organizationId, organizationId), eq(t.status, 'finished'), eq(t.passed, true), isNotNull(t.dueOn)))
+    .orderBy(t.personId, desc(t.performedAt))
+  return new Map(rows.map(r => [r.personId, r]))
+}

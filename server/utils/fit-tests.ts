@@ -1,0 +1,132 @@
+import { randomBytes } from 'node:crypto'
+import { and, asc, desc, eq } from 'drizzle-orm'
+import type { z } from 'zod'
+import { findBuiltInProtocol, resolvePassLevel } from '#shared/utils/compute'
+import type { PassLevelRuleSetKey, Protocol } from '#shared/utils/compute'
+import { localDate, retestIntervalMonths, storedFieldsOf } from '#shared/utils/fit-test-evaluate'
+import type { createFitTestSchema } from '#shared/utils/fit-test-schemas'
+import { PRE_TEST_ITEMS, unmetPreTestItems } from '#shared/utils/fit-test-schemas'
+
+export type FitTestRow = typeof schema.fitTests.$inferSelect
+type Organization = typeof schema.organizations.$inferSelect
+
+/** One revision of the organization, or a 404 that reads the same for "missing" and "not yours". */
+export async function findFitTest(organizationId: string, id: string): Promise<FitTestRow> {
+  const t = schema.fitTests
+  const [row] = await useDb().select().from(t).where(and(eq(t.organizationId, organizationId), eq(t.id, id)))
+  if (!row) throw createError({ statusCode: 404, statusMessage: 'No such fit test in your organization.' })
+  return row
+}
+
+export function passLevelFor(org: Organization, respiratorClass: string) {
+  const resolved = resolvePassLevel({ ruleSet: org.ruleSet as PassLevelRuleSetKey, respiratorClass, overrides: org.settings.passLevelOverrides })
+  if (!resolved.ok) {
+    throw createError({ statusCode: 409, statusMessage: resolved.issues[0]?.message ?? 'This respirator has no pass level.' })
+  }
+  return resolved.value
+}
+
+/**
+ * The server's own result for a revision, recomputed from the raw inputs only: nothing the client
+ * computed is ever read. Qualitative tests carry the recorded pass or fail.
+ */
+export function computeStoredResult(row: Pick<FitTestRow, 'kind' | 'protocol' | 'entry' | 'seriesText' | 'sampleFlowCm3PerMin' | 'respiratorClass' | 'performedAt'>, org: Organization, timeZone: string) {
+  return storedFieldsOf({
+    kind: row.kind,
+    protocol: row.protocol as Protocol | null,
+    entry: row.entry,
+    seriesText: row.seriesText,
+    sampleFlowCm3PerMin: row.sampleFlowCm3PerMin,
+    passLevel: row.kind === 'qualitative' ? null : passLevelFor(org, row.respiratorClass).level,
+    testedOn: localDate(row.performedAt, timeZone),
+    retestMonths: retestIntervalMonths(org.settings.retestIntervalMonths)
+  })
+}
+
+/** Checks that every referenced row belongs to the caller's organization and fits together. */
+export async function resolveReferences(organizationId: string, input: { personId: string, respiratorModelId: string, respiratorSize: string, siteId: string, counterId: string | null }) {
+  const db = useDb()
+  const [person] = await db.select().from(schema.people).where(and(eq(schema.people.organizationId, organizationId), eq(schema.people.id, input.personId)))
+  const model = await findRespiratorModel(organizationId, input.respiratorModelId).catch(() => null)
+  const [site] = await db.select().from(schema.sites).where(and(eq(schema.sites.organizationId, organizationId), eq(schema.sites.id, input.siteId)))
+  const [counter] = input.counterId
+    ? await db.select().from(schema.counters).where(and(eq(schema.counters.organizationId, organizationId), eq(schema.counters.id, input.counterId)))
+    : [null]
+  const fieldErrors: Record<string, string> = {}
+  if (!person) fieldErrors.personId = 'Choose a person from your roster.'
+  if (!model) fieldErrors.respiratorModelId = 'Choose a respirator from your catalogue.'
+  else if (!model.sizes.includes(input.respiratorSize)) fieldErrors.respiratorSize = `${model.make} ${model.model} comes in ${model.sizes.join(', ')}.`
+  if (!site) fieldErrors.siteId = 'Choose one of your sites.'
+  if (input.counterId && !counter) fieldErrors.counterId = 'Choose one of your counters.'
+  if (Object.keys(fieldErrors).length) {
+    throw createError({ statusCode: 400, statusMessage: `Check the form: ${Object.values(fieldErrors)[0]}`, data: { fieldErrors } })
+  }
+  return { person: person!, model: model!, site: site!, counter: counter ?? null }
+}
+
+export function protocolFor(protocolKey: string, kind: 'quantitative' | 'qualitative'): Protocol | null {
+  if (kind === 'qualitative') return null
+  const protocol = findBuiltInProtocol(protocolKey)
+  if (!protocol) {
+    throw createError({ statusCode: 400, statusMessage: 'Choose a quantitative protocol for a quantitative test.', data: { fieldErrors: { protocolKey: 'Choose a quantitative protocol.' } } })
+  }
+  return protocol
+}
+
+export type CreateFitTestInput = z.output<typeof createFitTestSchema>
+
+/** Refuses to finish a test whose pre-test items are not all met, naming each one. */
+export function assertReadyToFinish(row: FitTestRow, evaluationOk: boolean, firstIssue?: string) {
+  const unmet = unmetPreTestItems(row.preTest)
+  if (unmet.length) {
+    throw createError({ statusCode: 409, statusMessage: `The test cannot be finished: ${unmet.map(k => PRE_TEST_ITEMS[k]).join('; ')} — not confirmed.`, data: { unmet } })
+  }
+  if (row.kind === 'qualitative' && !row.entry.qualitative) {
+    throw createError({ statusCode: 409, statusMessage: 'Record the agent and whether the wearer passed before finishing.' })
+  }
+  if (row.kind === 'quantitative' && !evaluationOk) {
+    throw createError({ statusCode: 409, statusMessage: `The test cannot be finished yet: ${firstIssue ?? 'some results are missing'}.` })
+  }
+}
+
+export function assertDraft(row: FitTestRow) {
+  if (row.status !== 'draft') {
+    throw createError({ statusCode: 409, statusMessage: 'This record is finished and locked. To correct it, start a revision with a reason.' })
+  }
+}
+
+export function staleDraftError(currentVersion?: number) {
+  return createError({ statusCode: 409, statusMessage: 'Someone else saved this draft after you opened it. Reload to see their changes; your typing is still on screen.', data: { currentVersion } })
+}
+
+export function assertVersion(row: FitTestRow, version: number) {
+  if (row.version !== version) throw staleDraftError(row.version)
+}
+
+export async function findSite(organizationId: string, siteId: string) {
+  const [site] = await useDb().select().from(schema.sites).where(and(eq(schema.sites.organizationId, organizationId), eq(schema.sites.id, siteId)))
+  if (!site) throw createError({ statusCode: 404, statusMessage: 'No such site.' })
+  return site
+}
+
+export async function listRevisions(organizationId: string, recordId: string) {
+  const t = schema.fitTests
+  return useDb().select({ id: t.id, revision: t.revision, status: t.status, revisionReason: t.revisionReason, finishedAt: t.finishedAt, createdAt: t.createdAt })
+    .from(t).where(and(eq(t.organizationId, organizationId), eq(t.recordId, recordId))).orderBy(asc(t.revision))
+}
+
+export async function ensureCard(tx: Parameters<Parameters<Database['transaction']>[0]>[0], organizationId: string, recordId: string) {
+  await tx.insert(schema.fitCards).values({ organizationId, recordId, token: randomBytes(24).toString('base64url') }).onConflictDoNothing()
+}
+
+export async function findCard(organizationId: string, recordId: string) {
+  const [card] = await useDb().select().from(schema.fitCards).where(and(eq(schema.fitCards.organizationId, organizationId), eq(schema.fitCards.recordId, recordId)))
+  return card ?? null
+}
+
+/** The revision a record stands on now: the finished (or withdrawn) one, else the newest. */
+export async function currentRevision(organizationId: string, recordId: string) {
+  const t = schema.fitTests
+  const rows = await useDb().select().from(t).where(and(eq(t.organizationId, organizationId), eq(t.recordId, recordId))).orderBy(desc(t.revision))
+  return rows.find(r => r.status === 'finished' || r.status === 'withdrawn') ?? rows[0] ?? null
+}

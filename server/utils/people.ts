@@ -1,0 +1,59 @@
+import { and, asc, eq } from 'drizzle-orm'
+import type { z } from 'zod'
+import type { listPeopleQuerySchema } from '#shared/utils/person-schemas'
+import { personFitStatus } from '#shared/utils/person-schemas'
+
+export type PersonRow = typeof schema.people.$inferSelect
+
+export async function findPerson(organizationId: string, id: string): Promise<PersonRow> {
+  const [row] = await useDb().select().from(schema.people).where(and(eq(schema.people.organizationId, organizationId), eq(schema.people.id, id)))
+  if (!row) throw createError({ statusCode: 404, statusMessage: 'No such person in your roster.' })
+  return row
+}
+
+export function todayUtc() {
+  return new Date().toISOString().slice(0, 10)
+}
+
+/** The roster with each person's fit status, filtered, sorted and paged in memory (rosters are thousands, not millions). */
+export async function listPeople(organizationId: string, q: z.output<typeof listPeopleQuerySchema>) {
+  const [rows, passes, sites] = await Promise.all([
+    useDb().select().from(schema.people).where(eq(schema.people.organizationId, organizationId)).orderBy(asc(schema.people.fullName)),
+    latestPassByPerson(organizationId),
+    listSites(organizationId)
+  ])
+  const siteNames = new Map(sites.map(s => [s.id, s.name]))
+  const today = todayUtc()
+  const needle = q.q?.toLowerCase()
+  let list = rows.map((p) => {
+    const pass = passes.get(p.id)
+    return {
+      id: p.id, fullName: p.fullName, employeeNumber: p.employeeNumber, jobTitle: p.jobTitle, siteId: p.siteId,
+      siteName: p.siteId ? siteNames.get(p.siteId) ?? null : null, active: p.active,
+      medicalClearanceStatus: p.medicalClearanceStatus,
+      nextDueOn: pass?.dueOn ?? null,
+      currentRespirator: pass ? `${pass.respiratorMake} ${pass.respiratorModel}, ${pass.respiratorSize}` : null,
+      status: personFitStatus(pass?.dueOn ?? null, today)
+    }
+  })
+  if (needle) list = list.filter(p => p.fullName.toLowerCase().includes(needle) || (p.employeeNumber ?? '').toLowerCase().includes(needle) || (p.jobTitle ?? '').toLowerCase().includes(needle))
+  if (q.siteId) list = list.filter(p => p.siteId === q.siteId)
+  if (q.status) list = list.filter(p => p.status === q.status)
+  const key = q.sort
+  const sign = q.dir === 'desc' ? -1 : 1
+  list.sort((a, b) => sign * String(a[key] ?? '\uffff').localeCompare(String(b[key] ?? '\uffff')))
+  const total = list.length
+  return { rows: list.slice((q.page - 1) * q.pageSize, q.page * q.pageSize), total, page: q.page, pageSize: q.pageSize }
+}
+
+export async function assertSiteOf(organizationId: string, siteId: string | null | undefined) {
+  if (!siteId) return
+  const sites = await listSites(organizationId)
+  if (!sites.some(s => s.id === siteId)) {
+    throw createError({ statusCode: 400, statusMessage: 'Check the form: choose one of your sites.', data: { fieldErrors: { siteId: 'Choose one of your sites.' } } })
+  }
+}
+
+export function duplicateEmployeeNumber(employeeNumber: string) {
+  return createError({ statusCode: 409, statusMessage: `Employee number ${employeeNumber} is already on the roster.`, data: { fieldErrors: { employeeNumber: 'Another person has this employee number.' } } })
+}
