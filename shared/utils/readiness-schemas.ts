@@ -6,8 +6,8 @@ import type { AcceptanceRule } from './compute'
 export const MASK_PARTS = ['drinkTube', 'exhalationValve'] as const
 export type MaskPart = typeof MASK_PARTS[number]
 export const MASK_PART_LABELS: Record<MaskPart, string> = {
-  drinkTube: 'drink tube',
-  exhalationValve: 'exhalation valve'
+  drinkTube: 'a drink tube',
+  exhalationValve: 'an exhalation valve'
 }
 
 /** What a readiness template is for: the counter on its own, or a bench rig with its paired counter. */
