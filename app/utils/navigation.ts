@@ -13,9 +13,15 @@ export const NAV_ITEMS: NavItem[] = [
   { to: '/fit-tests', label: 'Fit tests', roles: ['tester', 'reviewer', 'trainer'] },
   { to: '/people', label: 'People', roles: ['tester', 'reviewer', 'trainer'] },
   { to: '/fit-tests', label: 'My fit tests', roles: ['wearer'] },
+  { to: '/equipment/checks', label: 'Readiness checks', roles: ['tester', 'reviewer', 'trainer'] },
+  { to: '/equipment/headform', label: 'Headform test', roles: ['tester'] },
+  { to: '/equipment/masks', label: 'Mask units', roles: ['tester', 'reviewer', 'trainer'] },
+  { to: '/equipment/counters', label: 'Counters and rigs', roles: ['tester', 'reviewer', 'trainer'] },
+  { to: '/equipment/templates', label: 'Check templates', roles: ['tester', 'reviewer', 'trainer'] },
   { to: '/admin/catalogue', label: 'Catalogue', roles: ['admin'] },
   { to: '/admin/users', label: 'Users', roles: ['admin'] },
-  { to: '/admin/outbox', label: 'Outbox', roles: ['admin'] }
+  { to: '/admin/outbox', label: 'Outbox', roles: ['admin'] },
+  { to: '/admin/settings', label: 'Settings', roles: ['admin'] }
 ]
 
 export function navFor(role: Role | undefined): NavItem[] {

@@ -4,6 +4,7 @@ import type { SeedDb } from './db'
 import { schema } from './db'
 import { seedFitTests } from './fit-tests'
 import { hashPassword } from './hash'
+import { seedEquipment } from './equipment'
 
 export interface SeededOrganization {
   id: string
@@ -36,6 +37,7 @@ export async function seedDemo(db: SeedDb, onProgress: (text: string) => void = 
     })
     seeded.push(result)
   }
+  await seedEquipment(db, seeded)
   await seedFitTests(db, seeded, onProgress)
   return seeded
 }

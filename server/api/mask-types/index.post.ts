@@ -1,0 +1,16 @@
+import { maskTypeSchema } from '#shared/utils/mask-schemas'
+
+export default defineEventHandler(async (event) => {
+  const caller = await requireRole(event, 'tester')
+  const input = await parseBody(event, maskTypeSchema)
+  const created = await useDb().transaction(async (tx) => {
+    const [row] = await tx.insert(schema.maskTypes).values({ ...input, organizationId: caller.organizationId }).returning()
+    await writeAudit(tx, caller, { entityType: 'mask-type', entityId: row!.id, action: 'created', after: input })
+    return row!
+  }).catch((error) => {
+    if (error?.cause?.code === '23505') throw createError({ statusCode: 409, statusMessage: 'A mask type with this name already exists.', data: { fieldErrors: { name: 'A mask type with this name already exists.' } } })
+    throw error
+  })
+  setResponseStatus(event, 201)
+  return created
+})

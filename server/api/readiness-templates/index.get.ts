@@ -1,0 +1,4 @@
+export default defineEventHandler(async (event) => {
+  const caller = await requireRole(event, 'tester', 'reviewer', 'trainer')
+  return listTemplates(caller.organizationId)
+})

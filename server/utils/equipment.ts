@@ -1,0 +1,66 @@
+import { and, asc, eq, getTableColumns } from 'drizzle-orm'
+
+/** A site id sent by a form must name a site of the caller's organization. */
+export async function assertSite(organizationId: string, siteId: string | null | undefined) {
+  if (!siteId) return
+  const [row] = await useDb().select({ id: schema.sites.id }).from(schema.sites)
+    .where(and(eq(schema.sites.organizationId, organizationId), eq(schema.sites.id, siteId)))
+  if (!row) throw createError({ statusCode: 400, statusMessage: 'Check the form: choose one of your sites.', data: { fieldErrors: { siteId: 'Choose one of your sites.' } } })
+}
+
+/** The IANA time zone deciding a result's calendar day; UTC when no site is known. */
+export async function siteTimeZone(organizationId: string, siteId: string | null | undefined): Promise<string> {
+  if (!siteId) return 'UTC'
+  const [row] = await useDb().select({ timeZone: schema.sites.timeZone }).from(schema.sites)
+    .where(and(eq(schema.sites.organizationId, organizationId), eq(schema.sites.id, siteId)))
+  return row?.timeZone ?? 'UTC'
+}
+
+export async function listCounters(organizationId: string, { includeRetired = false } = {}) {
+  const c = schema.counters
+  return useDb().select({ ...getTableColumns(c), siteName: schema.sites.name }).from(c)
+    .leftJoin(schema.sites, eq(schema.sites.id, c.siteId))
+    .where(and(eq(c.organizationId, organizationId), includeRetired ? undefined : eq(c.active, true)))
+    .orderBy(asc(c.serialNumber))
+}
+
+export async function findCounter(organizationId: string, id: string) {
+  const c = schema.counters
+  const [row] = await useDb().select().from(c).where(and(eq(c.organizationId, organizationId), eq(c.id, id)))
+  if (!row) throw createError({ statusCode: 404, statusMessage: 'No such counter in your organization.' })
+  return row
+}
+
+export async function listBenchRigs(organizationId: string, { includeRetired = false } = {}) {
+  const r = schema.benchRigs
+  return useDb().select({ ...getTableColumns(r), siteName: schema.sites.name, counterSerial: schema.counters.serialNumber }).from(r)
+    .leftJoin(schema.sites, eq(schema.sites.id, r.siteId))
+    .innerJoin(schema.counters, eq(schema.counters.id, r.counterId))
+    .where(and(eq(r.organizationId, organizationId), includeRetired ? undefined : eq(r.active, true)))
+    .orderBy(asc(r.serialNumber))
+}
+
+export async function findBenchRig(organizationId: string, id: string) {
+  const r = schema.benchRigs
+  const [row] = await useDb().select().from(r).where(and(eq(r.organizationId, organizationId), eq(r.id, id)))
+  if (!row) throw createError({ statusCode: 404, statusMessage: 'No such bench rig in your organization.' })
+  return row
+}
+
+/** A duplicate serial is a 409 on the serial field, so the form shows it beside the field. */
+export function duplicateSerial(error: unknown, what: string): never {
+  const code = (error as { code?: string, cause?: { code?: string } })?.cause?.code ?? (error as { code?: string })?.code
+  if (code === '23505') {
+    throw createError({ statusCode: 409, statusMessage: `Another ${what} already has this serial number.`, data: { fieldErrors: { serialNumber: `Another ${what} already has this serial number.` } } })
+  }
+  throw error
+}
+
+/** A rig may only be paired with an active counter of the same organization. */
+export async function assertPairableCounter(organizationId: string, counterId: string) {
+  const c = schema.counters
+  const [row] = await useDb().select({ active: c.active }).from(c).where(and(eq(c.organizationId, organizationId), eq(c.id, counterId)))
+  if (!row || !row.active) {
+    throw createError({ statusCode: 400, statusMessage: 'Check the form: pair the rig with one of your active counters.', data: { fieldErrors: { counterId: 'Choose one of your active counters.' } } })
+  }
+}

@@ -1,0 +1,142 @@
+import { and, asc, desc, eq, getTableColumns } from 'drizzle-orm'
+import type { z } from 'zod'
+import { evaluateAcceptanceRule } from '#shared/utils/compute'
+import { DEFAULT_TEMPLATES } from '#shared/utils/readiness-defaults'
+import type { listChecksQuerySchema, RecordStep, ReadinessStep, StartReadinessCheck, StepEntry } from '#shared/utils/readiness-schemas'
+
+type Tx = Parameters<Parameters<Database['transaction']>[0]>[0]
+
+/** Every organization gets the default templates the first time its templates are read. */
+export async function ensureDefaultTemplates(organizationId: string) {
+  const t = schema.readinessTemplates
+  const [any] = await useDb().select({ id: t.id }).from(t).where(eq(t.organizationId, organizationId)).limit(1)
+  if (any) return
+  await useDb().insert(t).values(DEFAULT_TEMPLATES.map(d => ({ ...d, organizationId, isDefault: true })))
+}
+
+export async function listTemplates(organizationId: string) {
+  await ensureDefaultTemplates(organizationId)
+  const t = schema.readinessTemplates
+  return useDb().select().from(t).where(eq(t.organizationId, organizationId)).orderBy(desc(t.active), asc(t.scope), asc(t.name))
+}
+
+export async function findTemplate(organizationId: string, id: string) {
+  const t = schema.readinessTemplates
+  const [row] = await useDb().select().from(t).where(and(eq(t.organizationId, organizationId), eq(t.id, id)))
+  if (!row) throw createError({ statusCode: 404, statusMessage: 'No such readiness template in your organization.' })
+  return row
+}
+
+/** Steps the mask type on the headform lacks the part for. */
+export function skippedStepsFor(steps: ReadinessStep[], maskType: { hasDrinkTube: boolean, hasExhalationValve: boolean } | null) {
+  if (!maskType) return []
+  return steps.flatMap((s, i) => (s.requiresPart === 'drinkTube' && !maskType.hasDrinkTube) || (s.requiresPart === 'exhalationValve' && !maskType.hasExhalationValve) ? [i] : [])
+}
+
+export function nextStep(from: number, total: number, skipped: number[]): number {
+  let i = from
+  while (i < total && skipped.includes(i)) i++
+  return i
+}
+
+/** Works out counter, rig, site and skipped steps for a new check; refuses mismatched choices. */
+export async function planCheck(organizationId: string, input: StartReadinessCheck) {
+  const template = await findTemplate(organizationId, input.templateId)
+  if (!template.active) throw createError({ statusCode: 409, statusMessage: 'This template is retired; choose an active one.' })
+  const bad = (field: string, message: string) => createError({ statusCode: 400, statusMessage: `Check the form: ${message}`, data: { fieldErrors: { [field]: message } } })
+  let rig = null
+  let counterId = input.counterId
+  if (template.scope === 'bench-rig') {
+    if (!input.benchRigId) throw bad('benchRigId', 'Choose the bench rig this template checks.')
+    rig = await findBenchRig(organizationId, input.benchRigId)
+    if (!rig.active) throw createError({ statusCode: 409, statusMessage: 'This bench rig is retired.' })
+    counterId = rig.counterId
+  } else if (input.benchRigId) {
+    throw bad('templateId', 'This template is for a counter on its own; choose a bench-rig template for a rig.')
+  }
+  if (!counterId) throw bad('counterId', 'Choose the counter to check.')
+  const counter = await findCounter(organizationId, counterId)
+  if (!counter.active) throw createError({ statusCode: 409, statusMessage: 'This counter is retired.' })
+  const maskType = input.maskTypeId && rig ? await findMaskType(organizationId, input.maskTypeId) : null
+  return {
+    template, counter, rig, maskType,
+    siteId: rig?.siteId ?? counter.siteId,
+    skippedSteps: skippedStepsFor(template.steps, maskType)
+  }
+}
+
+const checkColumns = {
+  ...getTableColumns(schema.readinessChecks),
+  counterSerial: schema.counters.serialNumber,
+  benchRigSerial: schema.benchRigs.serialNumber,
+  maskTypeName: schema.maskTypes.name,
+  siteName: schema.sites.name,
+  performedByName: schema.users.displayName
+}
+
+function checkQuery() {
+  const c = schema.readinessChecks
+  return useDb().select(checkColumns).from(c)
+    .innerJoin(schema.counters, eq(schema.counters.id, c.counterId))
+    .leftJoin(schema.benchRigs, eq(schema.benchRigs.id, c.benchRigId))
+    .leftJoin(schema.maskTypes, eq(schema.maskTypes.id, c.maskTypeId))
+    .leftJoin(schema.sites, eq(schema.sites.id, c.siteId))
+    .leftJoin(schema.users, eq(schema.users.id, c.performedBy))
+}
+
+export async function listChecks(organizationId: string, query: z.output<typeof listChecksQuerySchema>) {
+  const c = schema.readinessChecks
+  return checkQuery()
+    .where(and(
+      eq(c.organizationId, organizationId),
+      query.counterId ? eq(c.counterId, query.counterId) : undefined,
+      query.benchRigId ? eq(c.benchRigId, query.benchRigId) : undefined,
+      query.status ? eq(c.status, query.status) : undefined
+    ))
+    .orderBy(desc(c.startedAt))
+    .limit(query.limit)
+}
+
+export async function findCheck(organizationId: string, id: string) {
+  const c = schema.readinessChecks
+  const [row] = await checkQuery().where(and(eq(c.organizationId, organizationId), eq(c.id, id)))
+  if (!row) throw createError({ statusCode: 404, statusMessage: 'No such readiness check in your organization.' })
+  return row
+}
+
+/** Locks an open check for a change; an ended one is a 409, since a finished record is never edited. */
+export async function lockOpenCheck(tx: Tx, organizationId: string, id: string) {
+  const c = schema.readinessChecks
+  const [row] = await tx.select().from(c).where(and(eq(c.organizationId, organizationId), eq(c.id, id))).for('update')
+  if (!row) throw createError({ statusCode: 404, statusMessage: 'No such readiness check in your organization.' })
+  if (row.status !== 'in-progress') {
+    throw createError({ statusCode: 409, statusMessage: `This readiness check has ended (${row.status}) and can no longer be changed. Start a new check instead.` })
+  }
+  return row
+}
+
+type OpenCheck = Awaited<ReturnType<typeof lockOpenCheck>>
+
+/** One attempt at the current step: the verdict at once, the check moves on when it passes. */
+export function applyStep(check: OpenCheck, input: RecordStep, userId: string, now = new Date()) {
+  if (input.stepIndex !== check.currentStep) {
+    throw createError({ statusCode: 409, statusMessage: `This check is at step ${check.currentStep + 1}, not step ${input.stepIndex + 1}. Reload the page to see where it is.` })
+  }
+  const step = check.steps[check.currentStep]!
+  const verdict = evaluateAcceptanceRule(step.rule, input.value, step.name)
+  if (!verdict.ok) {
+    const message = verdict.issues[0]?.message ?? 'Enter the value for this step.'
+    throw createError({ statusCode: 400, statusMessage: `Check the form: ${message}`, data: { fieldErrors: { value: message } } })
+  }
+  const entry: StepEntry = { stepIndex: input.stepIndex, value: input.value, passed: verdict.value.passed, message: verdict.value.message, recordedAt: now.toISOString(), recordedBy: userId, ...(input.note ? { note: input.note } : {}) }
+  const currentStep = verdict.value.passed ? nextStep(check.currentStep + 1, check.steps.length, check.skippedSteps) : check.currentStep
+  const finished = currentStep >= check.steps.length
+  return {
+    entry,
+    changes: {
+      entries: [...check.entries, entry],
+      currentStep,
+      ...(finished ? { status: 'passed' as const, completedAt: now } : {})
+    }
+  }
+}

@@ -1,0 +1,56 @@
+import { z } from 'zod'
+
+const serialNumber = z.string({ error: 'Enter the serial number.' }).trim()
+  .min(1, { error: 'Enter the serial number.' })
+  .max(60, { error: 'Use at most 60 characters.' })
+const description = z.string().trim().max(200, { error: 'Use at most 200 characters.' })
+const siteId = z.uuid({ error: 'Choose a site.' }).nullable()
+
+export const counterSchema = z.object({
+  serialNumber,
+  description: description.default(''),
+  sampleFlowCm3PerMin: z.number({ error: 'Enter the sample flow in cm³/min.' })
+    .positive({ error: 'The sample flow must be above 0 cm³/min.' })
+    .max(10_000, { error: 'A sample flow above 10,000 cm³/min is not plausible; check the unit (cm³/min).' }),
+  calibrationDueOn: z.iso.date({ error: 'Enter the calibration due date as a date.' }).nullable().default(null),
+  siteId: siteId.default(null)
+})
+export type CounterInput = z.input<typeof counterSchema>
+
+export const updateCounterSchema = counterSchema.partial().extend({
+  active: z.boolean({ error: 'Active must be true or false.' }).optional()
+})
+
+export const benchRigSchema = z.object({
+  serialNumber,
+  description: description.default(''),
+  counterId: z.uuid({ error: 'Choose the counter paired with this rig.' }),
+  siteId: siteId.default(null)
+})
+export type BenchRigInput = z.input<typeof benchRigSchema>
+
+export const updateBenchRigSchema = benchRigSchema.partial().extend({
+  active: z.boolean({ error: 'Active must be true or false.' }).optional()
+})
+
+export const listEquipmentQuerySchema = z.object({
+  includeRetired: z.enum(['true', 'false']).optional()
+})
+
+/** Calibration is warned this many days before its due date. */
+export const CALIBRATION_WARNING_DAYS = 30
+
+export type CalibrationState = 'ok' | 'due-soon' | 'past-due' | 'unknown'
+
+/** Where a counter's calibration stands on a given calendar day (YYYY-MM-DD). Results after the due date are flagged. */
+export function calibrationState(dueOn: string | null, today: string): { state: CalibrationState, daysLeft: number | null } {
+  if (!dueOn) return { state: 'unknown', daysLeft: null }
+  const daysLeft = Math.round((Date.parse(`${dueOn}T00:00:00Z`) - Date.parse(`${today}T00:00:00Z`)) / 86_400_000)
+  if (daysLeft < 0) return { state: 'past-due', daysLeft }
+  if (daysLeft <= CALIBRATION_WARNING_DAYS) return { state: 'due-soon', daysLeft }
+  return { state: 'ok', daysLeft }
+}
+
+export const settingsSchema = z.object({
+  uncoveredResults: z.enum(['flag', 'refuse'], { error: 'Choose flag or refuse.' })
+})
