@@ -54,7 +54,7 @@ function entries(steps: ReadinessStep[], skipped: number[], startedAt: Date, use
   return { list, completedAt: new Date(t + 30_000), status: 'passed' as const, currentStep: steps.length }
 }
 
-async function insertCheck(tx: Tx, org: SeededOrganization, template: typeof schema.readinessTemplates.$inferSelect, target: { counterId: string, benchRigId?: string, siteId: string | null }, startedAt: Date, failAt?: { index: number, value: number }) {
+export async function insertCheck(tx: Tx | SeedDb, org: SeededOrganization, template: typeof schema.readinessTemplates.$inferSelect, target: { counterId: string, benchRigId?: string, siteId: string | null }, startedAt: Date, failAt?: { index: number, value: number }) {
   const run = entries(template.steps, [], startedAt, org.userIds.tester!, failAt)
   await tx.insert(schema.readinessChecks).values({
     organizationId: org.id, templateId: template.id, templateName: template.name,

@@ -2,7 +2,7 @@
 // log-normally spread fit factors and failures followed by a retest in another size or model.
 // Everything here is invented.
 import { randomBytes, randomUUID } from 'node:crypto'
-import { eq } from 'drizzle-orm'
+import { and, eq } from 'drizzle-orm'
 import { BUILT_IN_PROTOCOLS, findBuiltInProtocol, mulberry32, normalQuantile, resolvePassLevel } from '../../shared/utils/compute'
 import type { PassLevelRuleSetKey, Protocol } from '../../shared/utils/compute'
 import { localDate, storedFieldsOf } from '../../shared/utils/fit-test-evaluate'
@@ -10,6 +10,7 @@ import type { FitTestEntry } from '../../shared/utils/fit-test-schemas'
 import type { SeedDb } from './db'
 import { schema } from './db'
 import type { SeededOrganization } from './demo'
+import { insertCheck } from './equipment'
 
 const FIRST = ['Ada', 'Bram', 'Cleo', 'Dara', 'Emrys', 'Fenna', 'Gethin', 'Hollis', 'Ines', 'Jory', 'Kit', 'Linnea', 'Marek', 'Nell', 'Oren', 'Perrin', 'Quill', 'Rhian', 'Soren', 'Tove', 'Ulla', 'Vance', 'Wren', 'Yara', 'Zeb', 'Anouk', 'Bastian', 'Corin', 'Delphine', 'Eamon']
 const LAST = ['Ashdown', 'Brackley', 'Carrow', 'Dunmere', 'Elston', 'Fairlie', 'Garside', 'Hartwell', 'Ivesley', 'Jessop', 'Kellow', 'Lanyon', 'Marrick', 'Northam', 'Orwin', 'Penhale', 'Quarles', 'Rusholme', 'Stanier', 'Tregear', 'Upcott', 'Varley', 'Whitlow', 'Yelland']
@@ -61,7 +62,7 @@ export async function seedFitTests(db: SeedDb, orgs: SeededOrganization[], onPro
 
     const now = Date.now()
     const threeYears = 3 * 365 * 86400_000
-    let made = 0
+    const rows: TestRows[] = []
     for (const person of people) {
       const site = sites.find(s => s.id === person.siteId)!
       // Each wearer has a personal fit quality: most fit well, a few struggle (log-normal spread).
@@ -74,8 +75,9 @@ export async function seedFitTests(db: SeedDb, orgs: SeededOrganization[], onPro
         let passed = false
         while (!passed && attempt < 3) {
           const performedAt = new Date(at + attempt * 25 * 60_000)
-          passed = await insertTest(db, { org, orgRow: orgRow!, person, site, model, size, counter: pick(counters), performedAt, mu: personMu + (attempt * 0.9) + (size === model.sizes[1] ? 0.2 : 0), gauss, random })
-          made++
+          const row = buildTest({ org, orgRow: orgRow!, person, site, model, size, counter: pick(counters), performedAt, mu: personMu + (attempt * 0.9) + (size === model.sizes[1] ? 0.2 : 0), gauss, random })
+          rows.push(row)
+          passed = Boolean(row.test.passed)
           if (!passed) {
             // Retest after a refit: another size, or on the second failure another model.
             const sizes = model.sizes.filter(s => s !== size)
@@ -88,8 +90,39 @@ export async function seedFitTests(db: SeedDb, orgs: SeededOrganization[], onPro
         at += (330 + random() * 30) * 86400_000
       }
     }
-    onProgress(`${orgRow!.name}: ${made} fit tests`)
+    await coverTestDays(db, org, rows, sites, random)
+    for (let i = 0; i < rows.length; i += 100) {
+      await db.insert(schema.fitTests).values(rows.slice(i, i + 100).map(r => r.test))
+      await db.insert(schema.fitCards).values(rows.slice(i, i + 100).map(r => r.card))
+    }
+    onProgress(`${orgRow!.name}: ${rows.length} fit tests, each day's counter check before them`)
   }
+}
+
+/**
+ * A passing readiness check of the counter before the first test of each test day, so the
+ * demo's records are covered; about one day in forty is left without one, to show the flag.
+ */
+async function coverTestDays(db: SeedDb, org: SeededOrganization, rows: TestRows[], sites: (typeof schema.sites.$inferSelect)[], random: () => number) {
+  const [template] = await db.select().from(schema.readinessTemplates)
+    .where(and(eq(schema.readinessTemplates.organizationId, org.id), eq(schema.readinessTemplates.scope, 'counter')))
+  if (!template) return
+  const firstOfDay = new Map<string, { counterId: string, siteId: string, at: Date }>()
+  for (const { test } of rows) {
+    const site = sites.find(s => s.id === test.siteId)!
+    const key = `${test.counterId}|${localDate(test.performedAt, site.timeZone)}`
+    const known = firstOfDay.get(key)
+    if (!known || test.performedAt < known.at) firstOfDay.set(key, { counterId: test.counterId!, siteId: site.id, at: test.performedAt })
+  }
+  for (const day of firstOfDay.values()) {
+    if (random() < 0.025) continue
+    await insertCheck(db, org, template, { counterId: day.counterId, siteId: day.siteId }, new Date(day.at.getTime() - 40 * 60_000))
+  }
+}
+
+interface TestRows {
+  test: typeof schema.fitTests.$inferInsert & { performedAt: Date }
+  card: typeof schema.fitCards.$inferInsert
 }
 
 interface TestSpec {
@@ -106,7 +139,7 @@ interface TestSpec {
   random: () => number
 }
 
-async function insertTest(db: SeedDb, s: TestSpec): Promise<boolean> {
+function buildTest(s: TestSpec): TestRows {
   const ruleSet = s.orgRow.ruleSet as PassLevelRuleSetKey
   const modifiedKey = s.model.respiratorClass === 'elastomeric-half-mask' || s.model.respiratorClass === 'elastomeric-full-facepiece' ? 'osha-modified-elastomeric' : 'osha-standard'
   const protocol: Protocol = findBuiltInProtocol(ruleSet === 'us-osha' && s.random() < 0.3 ? modifiedKey : 'osha-standard') ?? BUILT_IN_PROTOCOLS[0]!
@@ -127,14 +160,15 @@ async function insertTest(db: SeedDb, s: TestSpec): Promise<boolean> {
   const level = resolvePassLevel({ ruleSet, respiratorClass: s.model.respiratorClass, overrides: s.orgRow.settings.passLevelOverrides })
   const { stored } = storedFieldsOf({ kind: 'quantitative', protocol, entry, sampleFlowCm3PerMin: s.counter.sampleFlowCm3PerMin, passLevel: level.ok ? level.value.level : null, testedOn: localDate(s.performedAt, s.site.timeZone), retestMonths: 12 })
   const recordId = randomUUID()
-  await db.insert(schema.fitTests).values({
-    organizationId: s.org.id, recordId, revision: 1, status: 'finished', version: 2,
-    personId: s.person.id, siteId: s.site.id, testerUserId: s.org.userIds.tester!, counterId: s.counter.id,
-    respiratorModelId: s.model.id, respiratorMake: s.model.make, respiratorModel: s.model.model, respiratorClass: s.model.respiratorClass, respiratorSize: s.size,
-    kind: 'quantitative', protocolKey: protocol.key, protocol, sampleFlowCm3PerMin: s.counter.sampleFlowCm3PerMin, performedAt: s.performedAt,
-    preTest: { medicalClearanceCurrent: true, nothingCrossingSeal: true, userSealCheckDone: true, comfortAcceptable: true },
-    entry, ...stored, finishedAt: new Date(s.performedAt.getTime() + 9 * 60_000), finishedByUserId: s.org.userIds.tester!
-  })
-  await db.insert(schema.fitCards).values({ organizationId: s.org.id, recordId, token: randomBytes(24).toString('base64url') })
-  return Boolean(stored.passed)
+  return {
+    test: {
+      organizationId: s.org.id, recordId, revision: 1, status: 'finished', version: 2,
+      personId: s.person.id, siteId: s.site.id, testerUserId: s.org.userIds.tester!, counterId: s.counter.id,
+      respiratorModelId: s.model.id, respiratorMake: s.model.make, respiratorModel: s.model.model, respiratorClass: s.model.respiratorClass, respiratorSize: s.size,
+      kind: 'quantitative', protocolKey: protocol.key, protocol, sampleFlowCm3PerMin: s.counter.sampleFlowCm3PerMin, performedAt: s.performedAt,
+      preTest: { medicalClearanceCurrent: true, nothingCrossingSeal: true, userSealCheckDone: true, comfortAcceptable: true },
+      entry, ...stored, finishedAt: new Date(s.performedAt.getTime() + 9 * 60_000), finishedByUserId: s.org.userIds.tester!
+    },
+    card: { organizationId: s.org.id, recordId, token: randomBytes(24).toString('base64url') }
+  }
 }

@@ -37,6 +37,8 @@ const columns = {
   kind: t.kind,
   performedAt: t.performedAt,
   personId: t.personId,
+  siteId: t.siteId,
+  counterId: t.counterId,
   personName: p.fullName,
   employeeNumber: p.employeeNumber,
   siteName: schema.sites.name,
@@ -71,17 +73,22 @@ export async function listFitTests(organizationId: string, q: ListFitTestsQuery,
     baseQuery().where(where).orderBy(order(sortColumn), desc(t.performedAt)).limit(q.pageSize).offset((q.page - 1) * q.pageSize),
     useDb().select({ n: count() }).from(t).innerJoin(p, eq(p.id, t.personId)).where(where)
   ])
-  return { rows, total: total?.n ?? 0, page: q.page, pageSize: q.pageSize }
+  const coverage = await findCoverageMany(organizationId, rows)
+  return { rows: rows.map(r => ({ ...r, coverage: coverage.get(r.id) ?? null })), total: total?.n ?? 0, page: q.page, pageSize: q.pageSize }
 }
 
 export async function exportFitTests(organizationId: string, q: ListFitTestsQuery) {
-  return baseQuery().where(conditions(organizationId, q)).orderBy(desc(t.performedAt)).limit(50_000)
+  const rows = await baseQuery().where(conditions(organizationId, q)).orderBy(desc(t.performedAt)).limit(50_000)
+  const coverage = await findCoverageMany(organizationId, rows)
+  return rows.map(r => ({ ...r, coverage: coverage.get(r.id) ?? null }))
 }
 
 /** The last passing finished test of each person: their current respirator and next due date. */
 export async function latestPassByPerson(organizationId: string) {
   const rows = await useDb().selectDistinctOn([t.personId], {
-    personId: t.personId, dueOn: t.dueOn, performedAt: t.performedAt,
+    personId: t.personId,
+    siteId: t.siteId,
+    counterId: t.counterId, dueOn: t.dueOn, performedAt: t.performedAt,
     respiratorMake: t.respiratorMake, respiratorModel: t.respiratorModel, respiratorSize: t.respiratorSize
   }).from(t)
     .where(and(eq(t.organizationId, organizationId), eq(t.status, 'finished'), eq(t.passed, true), isNotNull(t.dueOn)))

@@ -14,7 +14,11 @@ export async function fitTestView(caller: Caller, row: FitTestRow) {
     ? await db.select().from(schema.counters).where(eq(schema.counters.id, row.counterId))
     : [null]
   const { evaluation } = computeStoredResult(row, org, site.timeZone)
-  const [revisions, card] = await Promise.all([listRevisions(caller.organizationId, row.recordId), findCard(caller.organizationId, row.recordId)])
+  const [revisions, card, coverage] = await Promise.all([
+    listRevisions(caller.organizationId, row.recordId),
+    findCard(caller.organizationId, row.recordId),
+    row.counterId ? findCoverage(caller.organizationId, { counterId: row.counterId, siteId: row.siteId, performedAt: row.performedAt }) : null
+  ])
   return {
     ...row,
     seriesText: row.status === 'draft' ? row.seriesText : null,
@@ -28,6 +32,7 @@ export async function fitTestView(caller: Caller, row: FitTestRow) {
     result: evaluation?.result ?? null,
     seriesIssues: evaluation?.seriesIssues ?? [],
     revisions,
+    coverage,
     cardToken: card && (row.status === 'finished' || row.status === 'withdrawn') ? card.token : null,
     cautions: FIT_TEST_CAUTIONS
   }

@@ -3,6 +3,7 @@
 import type { ComputeIssue, FitTestResult, Protocol } from './compute'
 import { computeFitTest, parseCountSeries, segmentsToFitTestInputs } from './compute'
 import type { FitTestEntry } from './fit-test-schemas'
+import { localDay } from './coverage'
 
 export interface StoredFields {
   passLevel: number | null
@@ -108,11 +109,8 @@ export function nextDueDate(testedOn: string, months: number): string {
   return `${year}-${String(month + 1).padStart(2, '0')}-${String(day).padStart(2, '0')}`
 }
 
-/** The calendar date of an instant in an IANA time zone, as YYYY-MM-DD. */
-export function localDate(instant: Date | string, timeZone: string): string {
-  const parts = new Intl.DateTimeFormat('en-CA', { timeZone, year: 'numeric', month: '2-digit', day: '2-digit' }).format(new Date(instant))
-  return parts
-}
+/** The calendar date of an instant in an IANA time zone, as YYYY-MM-DD (the rule coverage uses too). */
+export const localDate = localDay
 
 export const MAX_RETEST_INTERVAL_MONTHS = 12
 

@@ -243,6 +243,35 @@ describe('qualitative tests', () => {
   })
 })
 
+describe('coverage by the counter\'s readiness check', () => {
+  it('flags a test with no check that day, refuses it when the program says so, and covers it after a passing check', async () => {
+    const local = await createOrganization('Coverage')
+    const localProgram = await createProgram(local)
+    const localTester = await signedIn(local.users.tester.email, local.users.tester.password)
+    await testDb().update(schema.organizations).set({ settings: { uncoveredResults: 'refuse' } }).where(eq(schema.organizations.id, local.id))
+    const body = {
+      ...newTest(), personId: localProgram.personId, respiratorModelId: localProgram.halfMaskId, counterId: localProgram.counterId, siteId: localProgram.siteId,
+      performedAt: '2026-11-20T15:00:00Z', entry: standardEntry([200, 200, 200, 200, 200, 200, 200])
+    }
+    const created = await localTester.post('/api/fit-tests', body)
+    expect(created.body.coverage).toMatchObject({ covered: false, reason: 'no-check-that-day' })
+    const refused = await localTester.post(`/api/fit-tests/${created.body.id}/finish`, { version: 1 })
+    expect(refused.status).toBe(409)
+    expect(refused.body.statusMessage).toMatch(/refuses results no readiness check covers/)
+
+    // A passing check of the same counter at 08:00 New York time the same day (fixture site zone).
+    await testDb().insert(schema.readinessChecks).values({
+      organizationId: local.id, templateName: 'Fixture counter check', counterId: localProgram.counterId, siteId: localProgram.siteId,
+      steps: [], status: 'passed', startedAt: new Date('2026-11-20T12:50:00Z'), completedAt: new Date('2026-11-20T13:00:00Z')
+    })
+    const covered = await localTester.get(`/api/fit-tests/${created.body.id}`)
+    expect(covered.body.coverage).toMatchObject({ covered: true, reason: 'covered' })
+    expect((await localTester.post(`/api/fit-tests/${created.body.id}/finish`, { version: 1 })).status).toBe(200)
+    const list = await localTester.get('/api/fit-tests')
+    expect(list.body.rows[0].coverage.covered).toBe(true)
+  })
+})
+
 describe('who may do what', () => {
   it('keeps another organization\'s tests invisible', async () => {
     const done = await finishedTest([200, 200, 200, 200, 200, 200, 200])

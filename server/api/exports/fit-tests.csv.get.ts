@@ -22,6 +22,7 @@ export default defineEventHandler(async (event) => {
     'size': r.respiratorSize,
     'protocol': findBuiltInProtocol(r.protocolKey)?.name ?? r.protocolKey,
     'counter': r.counterSerial ?? '',
+    'counter readiness': r.coverage ? (r.coverage.covered ? 'covered' : `NOT COVERED: ${r.coverage.message}`) : '',
     'overall fit factor': r.overallFitFactor === null ? '' : `${r.overallIsLowerBound ? '>' : ''}${r.overallFitFactor.toFixed(1)}`,
     'pass level': r.passLevel ?? '',
     'result': r.status === 'draft' ? 'draft' : r.passed === null ? '' : r.passed ? 'pass' : 'fail',

@@ -14,6 +14,12 @@ export default defineEventHandler(async (event) => {
   const { evaluation, stored } = computeStoredResult(row, org, site.timeZone)
   const firstError = evaluation?.result.issues.find(i => i.severity === 'error')?.message ?? evaluation?.seriesIssues.find(i => i.severity === 'error')?.message
   assertReadyToFinish(row, evaluation ? evaluation.result.ok : true, firstError)
+  if (row.counterId && org.settings.uncoveredResults === 'refuse') {
+    const coverage = await findCoverage(caller.organizationId, { counterId: row.counterId, siteId: row.siteId, performedAt: row.performedAt })
+    if (!coverage.covered) {
+      throw createError({ statusCode: 409, statusMessage: `Your program refuses results no readiness check covers: ${coverage.message}`, data: { coverage } })
+    }
+  }
 
   const t = schema.fitTests
   await useDb().transaction(async (tx) => {
