@@ -25,9 +25,10 @@ const CATALOGUE: Record<string, { make: string, model: string, respiratorClass: 
     { make: 'Larkspur Works', model: 'LW-11 half mask', respiratorClass: 'elastomeric-half-mask', sizes: ['S', 'M', 'L'] },
     { make: 'Larkspur Works', model: 'LW-30 filtering facepiece', respiratorClass: 'filtering-facepiece', sizes: ['Small', 'Regular'] }
   ],
+  // The brigade's full facepieces are the models of its mask units (scripts/seed/equipment.ts).
   'harrow-point': [
-    { make: 'Kestrel Ridge', model: 'KR-5 CBRN full facepiece', respiratorClass: 'elastomeric-full-facepiece', sizes: ['S', 'M', 'L'] },
-    { make: 'Kestrel Ridge', model: 'KR-9 breathing apparatus facepiece', respiratorClass: 'scba-pressure-demand-full-facepiece', sizes: ['S', 'M', 'L'] },
+    { make: 'Quillon Protective', model: 'QP-12 CBRN full facepiece', respiratorClass: 'elastomeric-full-facepiece', sizes: ['S', 'M', 'L'] },
+    { make: 'Ostler Breathing', model: 'OB-2 breathing-apparatus facepiece', respiratorClass: 'scba-pressure-demand-full-facepiece', sizes: ['S', 'M', 'L'] },
     { make: 'Fenmoor', model: 'FM-3 half mask', respiratorClass: 'elastomeric-half-mask', sizes: ['S', 'M', 'L'] }
   ]
 }

@@ -42,6 +42,7 @@ const columns = {
   personName: p.fullName,
   employeeNumber: p.employeeNumber,
   siteName: schema.sites.name,
+  siteTimeZone: schema.sites.timeZone,
   respiratorMake: t.respiratorMake,
   respiratorModel: t.respiratorModel,
   respiratorClass: t.respiratorClass,
