@@ -32,6 +32,13 @@ async function shutdown(code = 0) {
 }
 process.on('SIGINT', () => shutdown(0))
 process.on('SIGTERM', () => shutdown(0))
+process.on('SIGHUP', () => shutdown(0))
+// When npm (or the shell it used) is killed without passing the signal on, this process would be
+// orphaned with PostgreSQL and the app still running: notice the parent going and stop cleanly.
+const parentAtStart = process.ppid
+setInterval(() => {
+  if (process.ppid !== parentAtStart) shutdown(0)
+}, 1000).unref()
 
 try {
   await ensureDependencies(projectDir)

@@ -26,10 +26,19 @@ async function stopAll() {
   }
   stops.length = 0
 }
-process.on('SIGINT', async () => {
+for (const signal of ['SIGINT', 'SIGTERM', 'SIGHUP']) {
+  process.on(signal, async () => {
+    await stopAll()
+    process.exit(130)
+  })
+}
+// Stop the services this run started if npm, or the shell it used, goes away without telling us.
+const parentAtStart = process.ppid
+setInterval(async () => {
+  if (process.ppid === parentAtStart) return
   await stopAll()
   process.exit(130)
-})
+}, 1000).unref()
 
 const results = []
 async function stage(name, fn) {
