@@ -2,7 +2,7 @@ import { quantileSorted } from 'simple-statistics'
 import { sampleVolumeCm3 } from './counting-stats'
 import type { FitFactorValue } from './fit-factor'
 import { harmonicMeanFitFactor, meetsPassLevel } from './fit-factor'
-import type { ExerciseInput } from './fit-test'
+import type { ExerciseInput, FitTestResult } from './fit-test'
 import { computeFitTest } from './fit-test'
 import type { PhaseWindow, Protocol } from './protocols'
 import { protocolTimeline } from './protocols'
@@ -114,7 +114,7 @@ function validate(input: SimulationInput): void {
   }
 }
 
-function simulateOnce(input: SimulationInput, random: RandomSource): SimulatedTest {
+function simulateOnce(input: SimulationInput, random: RandomSource, intervals = false): SimulatedTest & { result: FitTestResult } {
   const { protocol } = input
   const timeline = protocolTimeline(protocol)
   const flow = input.sampleFlowCm3PerMin
@@ -173,7 +173,7 @@ function simulateOnce(input: SimulationInput, random: RandomSource): SimulatedTe
     passLevel: input.passLevel,
     sampleFlowCm3PerMin: flow,
     wholeTestAmbient: { start: wholeStart, end: wholeEnd },
-    intervals: false
+    intervals
   })
   for (const s of simulated) {
     s.fitFactor = result.exercises.find(e => e.exerciseKey === s.exerciseKey)?.fitFactor ?? null
@@ -184,14 +184,23 @@ function simulateOnce(input: SimulationInput, random: RandomSource): SimulatedTe
     overall: result.overall,
     trueOverall,
     pass: result.ok && result.pass,
-    truePass: meetsPassLevel(trueOverall, input.passLevel)
+    truePass: meetsPassLevel(trueOverall, input.passLevel),
+    result
   }
 }
 
 // One simulated test, reproducible from its seed.
 export function simulateFitTest(input: SimulationInput): SimulatedTest {
   validate(input)
-  return simulateOnce(input, mulberry32(input.seed))
+  const { result: _result, ...test } = simulateOnce(input, mulberry32(input.seed))
+  return test
+}
+
+// One simulated test with the full result a real test gets (intervals included), so the lab
+// shows it with the same components as a recorded result.
+export function simulateFitTestResult(input: SimulationInput): SimulatedTest & { result: FitTestResult } {
+  validate(input)
+  return simulateOnce(input, mulberry32(input.seed), true)
 }
 
 export interface SimulationSummary {
@@ -204,6 +213,37 @@ export interface SimulationSummary {
   truePass: boolean
   // percentiles of the simulated overall fit factor
   percentiles: { p5: number, p25: number, p50: number, p75: number, p95: number }
+  // runs per bin of equal width in log10(overall), for a distribution chart
+  histogram: LogHistogram
+}
+
+export interface LogHistogram {
+  // lower edge of each bin, fit factor; the last bin ends at `upperEdge`
+  lowerEdges: number[]
+  upperEdge: number
+  counts: number[]
+}
+
+// Bins of equal width on a log scale from the smallest to the largest value (at least a factor
+// of 1.5 wide so a narrow distribution still shows as a peak, not one bar).
+export function logHistogram(sortedValues: ArrayLike<number>, bins = 40): LogHistogram {
+  const positive: number[] = []
+  for (let i = 0; i < sortedValues.length; i++) if (sortedValues[i]! > 0) positive.push(sortedValues[i]!)
+  if (positive.length === 0) return { lowerEdges: [], upperEdge: 0, counts: [] }
+  let lo = Math.log10(positive[0]!)
+  let hi = Math.log10(positive[positive.length - 1]!)
+  if (hi - lo < Math.log10(1.5)) {
+    const mid = (hi + lo) / 2
+    lo = mid - Math.log10(1.5) / 2
+    hi = mid + Math.log10(1.5) / 2
+  }
+  const width = (hi - lo) / bins
+  const counts = Array.from({ length: bins }, () => 0)
+  for (const v of positive) {
+    const b = Math.min(bins - 1, Math.max(0, Math.floor((Math.log10(v) - lo) / width)))
+    counts[b]!++
+  }
+  return { lowerEdges: counts.map((_, i) => 10 ** (lo + i * width)), upperEdge: 10 ** hi, counts }
 }
 
 // K simulated tests from one seeded generator, summarized for the training lab.
@@ -239,6 +279,327 @@ export function simulateFitTests(input: SimulationInput & { runs: number }): Sim
       p50: quantileSorted(sorted, 0.5),
       p75: quantileSorted(sorted, 0.75),
       p95: quantileSorted(sorted, 0.95)
+    },
+    histogram: logHistogram(overalls)
+  }
+}
+
+// ── Probability of passing (the operating characteristic) ────────────────────────────────────
+//
+// Model: ambient is taken as precise (its count is hundreds of times the in-mask count) and the
+// in-mask count of counted exercise i is Poisson with mean λᵢ = C·Vᵢ / FFᵢ (Vᵢ = Q·tᵢ, derived
+// from N = C·Q·t). The measured fit factor is C·Vᵢ / Nᵢ, or the lower bound C·Vᵢ / 2.9957 when
+// Nᵢ = 0 (one-sided Poisson, Garwood 1936), so the measured overall (the harmonic mean,
+// 29 CFR 1910.134 App. A Part I.C.2(c)) is n·C / Σ(N′ᵢ/Vᵢ) with N′ = N, or 2.9957 for a zero.
+// A test passes when that overall ≥ the pass level L (29 CFR 1910.134(f)(7)), that is when
+// Σ(N′ᵢ/Vᵢ) ≤ n·C / L.
+//
+// • every counted exercise samples the same seconds and each expects ≥ 30 counts (a zero is
+//   then rarer than 1 in 10¹³): ΣNᵢ is Poisson(Σλᵢ) and P(pass) = P(ΣN ≤ ⌊n·C·V / L⌋), exact;
+// • unequal in-mask seconds and each exercise expects ≥ 100 counts: Σ(Nᵢ/Vᵢ) is close to normal
+//   with mean Σλᵢ/Vᵢ and variance Σλᵢ/Vᵢ² (normal approximation, labelled so);
+// • otherwise a seeded Monte Carlo of the same model.
+
+export type PassProbabilityMethod = 'exact' | 'normal-approximation' | 'monte-carlo'
+
+export const PASS_PROBABILITY_METHOD_LABELS: Record<PassProbabilityMethod, string> = {
+  'exact': 'exact (Poisson sum)',
+  'normal-approximation': 'normal approximation (every exercise expects 100 or more counts)',
+  'monte-carlo': 'Monte Carlo (seeded)'
+}
+
+export interface PassProbabilityInput {
+  protocol: Protocol
+  trueFitFactors: number | Readonly<Record<string, number>>
+  ambient: number
+  sampleFlowCm3PerMin: number
+  passLevel: number
+  // seed and runs of the Monte Carlo, when it is needed
+  seed?: number
+  runs?: number
+}
+
+export interface PassProbability {
+  probability: number
+  method: PassProbabilityMethod
+  // Monte Carlo runs behind the figure; null when worked out
+  runs: number | null
+  trueOverall: number
+  // the smallest expected in-mask count of any counted exercise
+  smallestExpectedCount: number
+}
+
+// one-sided 95 % upper bound of a zero count, −ln 0.05 (Garwood 1936): what a zero counts as
+const ZERO_COUNT_BOUND = -Math.log(0.05)
+const EXACT_MIN_EXPECTED = 30
+const NORMAL_MIN_EXPECTED = 100
+export const DEFAULT_MONTE_CARLO_RUNS = 4000
+
+interface CountedExercise { volume: number, lambda: number }
+
+function countedExercises(input: PassProbabilityInput): { exercises: CountedExercise[], trueOverall: number } {
+  validate({ ...input, seed: input.seed ?? 1 })
+  const exercises: CountedExercise[] = []
+  const truth: number[] = []
+  for (const e of input.protocol.exercises) {
+    if (!e.counted || !(e.sampling.maskSeconds > 0)) continue
+    const ff = trueFactorFor({ ...input, seed: 0 }, e.key)
+    const volume = sampleVolumeCm3(input.sampleFlowCm3PerMin, e.sampling.maskSeconds)
+    exercises.push({ volume, lambda: input.ambient * volume / ff })
+    truth.push(ff)
+  }
+  if (exercises.length === 0) throw new RangeError('the protocol has no counted exercise with an in-mask sample')
+  return { exercises, trueOverall: harmonicMeanFitFactor(truth) }
+}
+
+// ln Γ(x) by the Lanczos approximation (g = 7, 9 terms; constants from memory, relative error
+// below 1e-13), for the Poisson tail below.
+const LANCZOS = [0.99999999999980993, 676.5203681218851, -1259.1392167224028, 771.32342877765313,
+  -176.61502916214059, 12.507343278686905, -0.13857109526572012, 9.9843695780195716e-6, 1.5056327351493116e-7]
+function logGamma(x: number): number {
+  const xm = x - 1
+  let a = LANCZOS[0]!
+  const t = xm + 7.5
+  for (let i = 1; i < 9; i++) a += LANCZOS[i]! / (xm + i)
+  return 0.5 * Math.log(2 * Math.PI) + (xm + 0.5) * Math.log(t) - t + Math.log(a)
+}
+
+// Regularized lower incomplete gamma P(a, x): series below a + 1, continued fraction (Lentz)
+// above — the standard pair of expansions (Numerical Recipes §6.2, from memory).
+function regularizedGammaP(a: number, x: number): number {
+  if (x <= 0) return 0
+  const logPrefix = a * Math.log(x) - x - logGamma(a)
+  if (x < a + 1) {
+    let term = 1 / a
+    let sum = term
+    for (let n = 1; n < 100000; n++) {
+      term *= x / (a + n)
+      sum += term
+      if (Math.abs(term) < Math.abs(sum) * 1e-15) break
+    }
+    return Math.min(1, sum * Math.exp(logPrefix))
+  }
+  const tiny = 1e-300
+  let b = x + 1 - a
+  let c = 1 / tiny
+  let d = 1 / b
+  let h = d
+  for (let i = 1; i < 100000; i++) {
+    const an = -i * (i - a)
+    b += 2
+    d = an * d + b
+    if (Math.abs(d) < tiny) d = tiny
+    c = b + an / c
+    if (Math.abs(c) < tiny) c = tiny
+    d = 1 / d
+    const delta = d * c
+    h *= delta
+    if (Math.abs(delta - 1) < 1e-15) break
+  }
+  return Math.max(0, 1 - Math.exp(logPrefix) * h)
+}
+
+// P(N ≤ k) for N Poisson with mean λ: 1 − P(k + 1, λ) (the Poisson–gamma relation).
+export function poissonCdf(k: number, mean: number): number {
+  if (!(mean >= 0) || !Number.isFinite(mean)) throw new RangeError('mean must be a finite number ≥ 0')
+  if (k < 0) return 0
+  if (mean === 0) return 1
+  return 1 - regularizedGammaP(Math.floor(k) + 1, mean)
+}
+
+// Standard normal CDF via erfc (Numerical Recipes' Chebyshev erfc, from memory; |error| < 1.2e-7).
+function normalCdf(z: number): number {
+  const x = Math.abs(z) / Math.SQRT2
+  const t = 1 / (1 + 0.5 * x)
+  const erfc = t * Math.exp(-x * x - 1.26551223 + t * (1.00002368 + t * (0.37409196 + t * (0.09678418
+    + t * (-0.18628806 + t * (0.27886807 + t * (-1.13520398 + t * (1.48851413
+    + t * (-0.82215223 + t * 0.17087277)))))))))
+  return z >= 0 ? 1 - erfc / 2 : erfc / 2
+}
+
+// Tolerance of meetsPassLevel: a ratio that equals the level up to rounding counts as meeting it.
+const LEVEL_TOLERANCE = 1e-12
+
+function monteCarloPassProbability(exercises: CountedExercise[], threshold: number, runs: number, random: RandomSource): number {
+  let passes = 0
+  const limit = threshold * (1 + LEVEL_TOLERANCE)
+  for (let r = 0; r < runs; r++) {
+    let s = 0
+    for (const e of exercises) {
+      const n = samplePoisson(e.lambda, random)
+      s += (n === 0 ? ZERO_COUNT_BOUND : n) / e.volume
+      if (s > limit) break
+    }
+    if (s <= limit) passes++
+  }
+  return passes / runs
+}
+
+// Probability that one test of a wearer with these true fit factors passes, from counting noise
+// alone (see the model above). The method used is returned with the figure.
+export function passProbability(input: PassProbabilityInput): PassProbability {
+  const { exercises, trueOverall } = countedExercises(input)
+  const n = exercises.length
+  // pass ⇔ Σ(N′ᵢ/Vᵢ) ≤ n·C / L
+  const threshold = n * input.ambient / input.passLevel
+  const smallestExpectedCount = Math.min(...exercises.map(e => e.lambda))
+  const base = { trueOverall, smallestExpectedCount }
+  const sameVolume = exercises.every(e => Math.abs(e.volume - exercises[0]!.volume) <= 1e-9 * e.volume)
+  if (sameVolume && smallestExpectedCount >= EXACT_MIN_EXPECTED) {
+    const volume = exercises[0]!.volume
+    const total = exercises.reduce((a, e) => a + e.lambda, 0)
+    const k = Math.floor(threshold * volume * (1 + LEVEL_TOLERANCE))
+    return { ...base, probability: poissonCdf(k, total), method: 'exact', runs: null }
+  }
+  if (smallestExpectedCount >= NORMAL_MIN_EXPECTED) {
+    let mean = 0
+    let variance = 0
+    for (const e of exercises) {
+      mean += e.lambda / e.volume
+      variance += e.lambda / (e.volume * e.volume)
+    }
+    return { ...base, probability: normalCdf((threshold - mean) / Math.sqrt(variance)), method: 'normal-approximation', runs: null }
+  }
+  const runs = input.runs ?? DEFAULT_MONTE_CARLO_RUNS
+  if (!Number.isInteger(runs) || runs < 1) throw new RangeError('runs must be a whole number ≥ 1')
+  const probability = monteCarloPassProbability(exercises, threshold, runs, mulberry32(input.seed ?? 1))
+  return { ...base, probability, method: 'monte-carlo', runs }
+}
+
+export interface OperatingCharacteristicInput extends Omit<PassProbabilityInput, 'trueFitFactors'> {
+  // the wearer's pattern of leaks: true fit factors whose harmonic mean is scaled to each point
+  profile: number | Readonly<Record<string, number>>
+  // true overall fit factors to evaluate, spaced evenly on a log scale
+  fromFitFactor: number
+  toFitFactor: number
+  points: number
+}
+
+export interface OperatingCharacteristicPoint extends PassProbability {}
+
+export interface OperatingCharacteristic {
+  points: OperatingCharacteristicPoint[]
+  passLevel: number
+  // true overall fit factors at which the probability of passing first reaches 5 %, 50 % and 95 %
+  // (linear between points on the log scale); null outside the range drawn
+  at5: number | null
+  at50: number | null
+  at95: number | null
+}
+
+// Scales every exercise of a leak pattern by the same factor so that the harmonic mean is `overall`.
+export function scaleProfile(protocol: Protocol, profile: number | Readonly<Record<string, number>>, overall: number): Record<string, number> {
+  const counted = protocol.exercises.filter(e => e.counted)
+  const values = counted.map(e => typeof profile === 'number' ? profile : profile[e.key] ?? Number.NaN)
+  if (values.some(v => !(v > 0) || !Number.isFinite(v))) throw new RangeError('every counted exercise needs a positive true fit factor')
+  const k = overall / harmonicMeanFitFactor(values)
+  return Object.fromEntries(counted.map((e, i) => [e.key, values[i]! * k]))
+}
+
+function crossing(points: OperatingCharacteristicPoint[], p: number): number | null {
+  for (let i = 1; i < points.length; i++) {
+    const a = points[i - 1]!
+    const b = points[i]!
+    if (a.probability < p && b.probability >= p) {
+      const f = (p - a.probability) / (b.probability - a.probability)
+      return 10 ** (Math.log10(a.trueOverall) + f * (Math.log10(b.trueOverall) - Math.log10(a.trueOverall)))
     }
   }
+  return null
+}
+
+// Probability of passing against the true overall fit factor: how sharply a test separates a
+// wearer just above the level from one just below, at this concentration, flow and protocol.
+export function operatingCharacteristic(input: OperatingCharacteristicInput): OperatingCharacteristic {
+  const { fromFitFactor: lo, toFitFactor: hi, points: count } = input
+  if (!(lo > 0) || !(hi > lo) || !Number.isFinite(hi)) throw new RangeError('the fit-factor range must be positive and increasing')
+  if (!Number.isInteger(count) || count < 2 || count > 400) throw new RangeError('points must be a whole number from 2 to 400')
+  const points: OperatingCharacteristicPoint[] = []
+  for (let i = 0; i < count; i++) {
+    const overall = 10 ** (Math.log10(lo) + i * (Math.log10(hi) - Math.log10(lo)) / (count - 1))
+    const trueFitFactors = scaleProfile(input.protocol, input.profile, overall)
+    // one seed per point, derived from the input seed, so each point is reproducible on its own
+    points.push(passProbability({ ...input, trueFitFactors, seed: ((input.seed ?? 1) + i * 7919) >>> 0 }))
+  }
+  return { points, passLevel: input.passLevel, at5: crossing(points, 0.05), at50: crossing(points, 0.5), at95: crossing(points, 0.95) }
+}
+
+// ── A second-by-second trace, for watching one simulated test run ─────────────────────────────
+
+export interface TraceSecond {
+  t: number
+  exerciseIndex: number
+  phase: 'purge' | 'ambient' | 'mask' | 'idle'
+  // particles counted in this second (null while purging or idle: nothing is sampled)
+  count: number | null
+  // count ÷ the volume sampled in the second, particles/cm³
+  concentration: number | null
+}
+
+export interface SimulatedTrace {
+  seconds: TraceSecond[]
+  result: FitTestResult
+  trueOverall: number
+  // each exercise's fit factor can be shown once the trace passes this second
+  exerciseReadyAt: Record<string, number>
+}
+
+// One simulated test second by second: every sampled second is a Poisson count, and the
+// exercise inputs are the sums of those seconds, so the result is exactly what the trace shows.
+// The result goes through computeFitTest like a recorded test.
+export function simulateCountTrace(input: SimulationInput): SimulatedTrace {
+  validate(input)
+  const { protocol } = input
+  const random = mulberry32(input.seed)
+  const timeline = protocolTimeline(protocol)
+  const perSecondVolume = sampleVolumeCm3(input.sampleFlowCm3PerMin, 1)
+  const seconds: TraceSecond[] = []
+  const phaseCounts = new Map<PhaseWindow, number>()
+  const truth: number[] = []
+  for (const w of timeline.exercises) {
+    const trueFitFactor = w.counted && w.mask ? trueFactorFor(input, w.exerciseKey) : null
+    if (trueFitFactor !== null) truth.push(trueFitFactor)
+    for (const ph of w.phases) {
+      let total = 0
+      for (let t = ph.startSeconds; t < ph.endSeconds; t++) {
+        let count: number | null = null
+        if (ph.kind === 'ambient') count = samplePoisson(input.ambient * perSecondVolume, random)
+        // an exercise that is not counted is performed without a sample
+        if (ph.kind === 'mask' && trueFitFactor !== null) count = samplePoisson(input.ambient * perSecondVolume / trueFitFactor, random)
+        if (count !== null) total += count
+        seconds.push({ t, exerciseIndex: w.index, phase: ph.kind, count, concentration: count === null ? null : count / perSecondVolume })
+      }
+      phaseCounts.set(ph, total)
+    }
+  }
+  const concentrationOf = (ph: PhaseWindow | null) => ph ? phaseCounts.get(ph)! / sampleVolumeCm3(input.sampleFlowCm3PerMin, ph.endSeconds - ph.startSeconds) : null
+  const exercises: ExerciseInput[] = []
+  const exerciseReadyAt: Record<string, number> = {}
+  let wholeStart: number | null = null
+  let wholeEnd: number | null = null
+  for (const w of timeline.exercises) {
+    if (!w.counted || !w.mask) continue
+    const entry: ExerciseInput = { exerciseKey: w.exerciseKey, inMaskCount: phaseCounts.get(w.mask)!, inMaskSeconds: w.mask.endSeconds - w.mask.startSeconds }
+    if (protocol.ambientPlan === 'per-exercise') {
+      entry.ambientBefore = concentrationOf(w.ambientBefore)
+      entry.ambientAfter = concentrationOf(w.ambientAfter)
+    } else if (protocol.ambientPlan === 'continuous') {
+      entry.ambientMean = input.ambient
+    } else {
+      wholeStart = concentrationOf(w.ambientBefore)
+      wholeEnd = concentrationOf(w.ambientAfter)
+    }
+    exercises.push(entry)
+    exerciseReadyAt[w.exerciseKey] = protocol.ambientPlan === 'per-exercise'
+      ? (w.ambientAfter?.endSeconds ?? w.mask.endSeconds)
+      : protocol.ambientPlan === 'whole-test' ? timeline.durationSeconds : w.mask.endSeconds
+  }
+  const result = computeFitTest({
+    protocol,
+    exercises,
+    wholeTestAmbient: { start: wholeStart, end: wholeEnd },
+    passLevel: input.passLevel,
+    sampleFlowCm3PerMin: input.sampleFlowCm3PerMin
+  })
+  return { seconds, result, trueOverall: harmonicMeanFitFactor(truth), exerciseReadyAt }
 }
