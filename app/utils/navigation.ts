@@ -18,6 +18,7 @@ export const NAV_ITEMS: NavItem[] = [
   { to: '/equipment/masks', label: 'Mask units', roles: ['tester', 'reviewer', 'trainer'] },
   { to: '/equipment/counters', label: 'Counters and rigs', roles: ['tester', 'reviewer', 'trainer'] },
   { to: '/equipment/templates', label: 'Check templates', roles: ['tester', 'reviewer', 'trainer'] },
+  { to: '/lab', label: 'Training lab', roles: ['trainer', 'tester'] },
   { to: '/admin/catalogue', label: 'Catalogue', roles: ['admin'] },
   { to: '/admin/users', label: 'Users', roles: ['admin'] },
   { to: '/admin/outbox', label: 'Outbox', roles: ['admin'] },

@@ -1,0 +1,13 @@
+import { defineStore } from 'pinia'
+import type { LabTextState } from '#shared/utils/lab-setup'
+import { defaultLabState } from '#shared/utils/lab-setup'
+
+/** The training lab's set-up as typed, shared by its pages; the URL carries it for sharing. */
+export const useLabStore = defineStore('training-lab', {
+  state: () => ({
+    setup: defaultLabState() as LabTextState,
+    classroom: false,
+    /** what a shared link carried that the lab could not use */
+    notices: [] as string[]
+  })
+})
