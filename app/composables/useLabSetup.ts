@@ -1,5 +1,5 @@
 import type { LabField } from '#shared/utils/lab-setup'
-import { checkLabField, decodeLabQuery, encodeLabQuery } from '#shared/utils/lab-setup'
+import { LEAK_PRESETS, checkLabField, decodeLabQuery, encodeLabQuery } from '#shared/utils/lab-setup'
 import { findBuiltInProtocol } from '#shared/utils/compute'
 import { useLabStore } from '~/stores/lab'
 
@@ -33,5 +33,29 @@ export function useLabSetup() {
     const r = checkLabField(field, text)
     return r.ok ? { value: r.value, message: null } : { value: null, message: r.message }
   }
-  return { store, protocol, checked }
+  /** The simulated test's inputs, or null while a field above needs correcting. */
+  const runInput = computed(() => {
+    const st = store.setup
+    const values = {
+      passLevel: checked('passLevel', st.passLevel).value,
+      ambient: checked('ambient', st.ambient).value,
+      sampleFlowCm3PerMin: checked('flow', st.flow).value,
+      seed: checked('seed', st.seed).value,
+      runs: checked('runs', st.runs).value
+    }
+    const trueFitFactors: Record<string, number> = {}
+    for (const e of protocol.value.exercises.filter(x => x.counted)) {
+      const v = checked('fitFactor', st.trueFactors[e.key] ?? '').value
+      if (v === null) return null
+      trueFitFactors[e.key] = v
+    }
+    if (values.passLevel === null || values.ambient === null || values.sampleFlowCm3PerMin === null || values.seed === null) return null
+    return { protocolKey: protocol.value.key, trueFitFactors, passLevel: values.passLevel, ambient: values.ambient, sampleFlowCm3PerMin: values.sampleFlowCm3PerMin, seed: values.seed, runs: values.runs }
+  })
+  /** A new protocol has other exercises: start them from a good seal. */
+  function resetFactors() {
+    const factors = LEAK_PRESETS[0]!.factorsFor(protocol.value, runInput.value?.passLevel ?? 100)!
+    store.setup.trueFactors = Object.fromEntries(Object.entries(factors).map(([k, v]) => [k, String(v)]))
+  }
+  return { store, protocol, checked, runInput, resetFactors }
 }
