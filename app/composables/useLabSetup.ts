@@ -1,5 +1,5 @@
 import type { LabField } from '#shared/utils/lab-setup'
-import { LEAK_PRESETS, checkLabField, decodeLabQuery, encodeLabQuery } from '#shared/utils/lab-setup'
+import { LEAK_PRESETS, checkLabField, hasLabQuery, decodeLabQuery, encodeLabQuery } from '#shared/utils/lab-setup'
 import { findBuiltInProtocol } from '#shared/utils/compute'
 import { useLabStore } from '~/stores/lab'
 
@@ -11,7 +11,7 @@ export function useLabSetup() {
   const store = useLabStore()
   const route = useRoute()
   const router = useRouter()
-  if (Object.keys(route.query).some(k => k !== 'room')) {
+  if (hasLabQuery(route.query)) {
     const decoded = decodeLabQuery(route.query as Record<string, unknown>)
     store.setup = decoded.state
     store.notices = decoded.notices
@@ -22,7 +22,7 @@ export function useLabSetup() {
   watch(() => [store.setup, store.classroom], () => {
     clearTimeout(timer)
     timer = setTimeout(() => {
-      void router.replace({ query: { ...encodeLabQuery(store.setup), ...(store.classroom ? { room: '1' } : {}) } })
+      void router.replace({ query: { ...(route.query.lesson ? { lesson: route.query.lesson } : {}), ...encodeLabQuery(store.setup), ...(store.classroom ? { room: '1' } : {}) } })
     }, 250)
   }, { deep: true })
   onScopeDispose(() => clearTimeout(timer))

@@ -24,7 +24,7 @@ const api = {
     const summary = simulateFitTests({ ...input, protocol: protocolOf(input.protocolKey) })
     return { summary, milliseconds: performance.now() - started }
   },
-  operatingCharacteristic(input: LabRunInput & { fromFitFactor: number, toFitFactor: number, points: number }): { curve: OperatingCharacteristic, milliseconds: number } {
+  operatingCharacteristic(input: LabRunInput & { fromFitFactor: number, toFitFactor: number, points: number, runs?: number }): { curve: OperatingCharacteristic, milliseconds: number } {
     const started = performance.now()
     const { trueFitFactors, ...rest } = input
     const curve = operatingCharacteristic({ ...rest, profile: trueFitFactors, protocol: protocolOf(input.protocolKey) })

@@ -180,6 +180,11 @@ const QUERY_KEYS: Record<Exclude<keyof LabTextState, 'trueFactors'>, string> = {
 }
 const MAX_QUERY_TEXT = 60
 
+/** True when a query string carries a lab set-up (other parameters, such as a lesson number, do not count). */
+export function hasLabQuery(query: Record<string, unknown>): boolean {
+  return [...Object.values(QUERY_KEYS), 'tf'].some(k => k in query)
+}
+
 export function defaultLabState(): LabTextState {
   const protocol = BUILT_IN_PROTOCOLS.find(p => p.key === LAB_DEFAULTS.protocolKey)!
   const factors = LEAK_PRESETS[1]!.factorsFor(protocol, Number(LAB_DEFAULTS.passLevel))!
