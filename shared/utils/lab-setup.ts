@@ -163,10 +163,21 @@ export const LAB_DEFAULTS = {
 } as const
 
 export type LabTextState = {
-  aLabel: string, aAmbient: string, aFlow: string
-  bLabel: string, bAmbient: string, bFlow: string
-  fitFactor: string, precisionPercent: string, sampleSeconds: string
-  protocolKey: string, passLevel: string, ambient: string, flow: string, runs: string, seed: string
+  aLabel: string
+  aAmbient: string
+  aFlow: string
+  bLabel: string
+  bAmbient: string
+  bFlow: string
+  fitFactor: string
+  precisionPercent: string
+  sampleSeconds: string
+  protocolKey: string
+  passLevel: string
+  ambient: string
+  flow: string
+  runs: string
+  seed: string
   /** true fit factor per exercise key, as typed */
   trueFactors: Record<string, string>
 }

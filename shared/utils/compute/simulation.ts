@@ -413,7 +413,7 @@ function normalCdf(z: number): number {
   const t = 1 / (1 + 0.5 * x)
   const erfc = t * Math.exp(-x * x - 1.26551223 + t * (1.00002368 + t * (0.37409196 + t * (0.09678418
     + t * (-0.18628806 + t * (0.27886807 + t * (-1.13520398 + t * (1.48851413
-    + t * (-0.82215223 + t * 0.17087277)))))))))
+      + t * (-0.82215223 + t * 0.17087277)))))))))
   return z >= 0 ? 1 - erfc / 2 : erfc / 2
 }
 
@@ -475,7 +475,7 @@ export interface OperatingCharacteristicInput extends Omit<PassProbabilityInput,
   points: number
 }
 
-export interface OperatingCharacteristicPoint extends PassProbability {}
+export type OperatingCharacteristicPoint = PassProbability
 
 export interface OperatingCharacteristic {
   points: OperatingCharacteristicPoint[]
