@@ -136,6 +136,17 @@ describe('probability of passing', () => {
     expect(Math.abs(simulated.passProbability - worked.probability)).toBeLessThan(4 * se + 0.01)
   })
 
+  it('keeps the normal approximation when one leaky exercise dominates the sum, and agrees with the simulation', () => {
+    // invented leak pattern: talking at 10, the rest at 2000, scaled to a true overall of 102
+    const profile = Object.fromEntries(STANDARD_PROTOCOL.exercises.filter(e => e.counted).map(e => [e.key, e.key === 'talking' ? 10 : 2000]))
+    const input = { ...base, sampleFlowCm3PerMin: 350, protocol: STANDARD_PROTOCOL, trueFitFactors: scaleProfile(STANDARD_PROTOCOL, profile, 102) }
+    const worked = passProbability(input)
+    expect(worked.method).toBe('normal-approximation')
+    const simulated = simulateFitTests({ ...input, runs: 4000 })
+    const se = Math.sqrt(worked.probability * (1 - worked.probability) / 4000)
+    expect(Math.abs(simulated.passProbability - worked.probability)).toBeLessThan(4 * se + 0.01)
+  })
+
   it('falls back to a seeded Monte Carlo when counts are few, and agrees with the full simulation', () => {
     const input = { ...base, ambient: 20, protocol: MODIFIED_ELASTOMERIC_PROTOCOL, passLevel: 500, trueFitFactors: 500, runs: 4000 }
     const mc = passProbability(input)

@@ -296,15 +296,17 @@ export function simulateFitTests(input: SimulationInput & { runs: number }): Sim
 //
 // • every counted exercise samples the same seconds and each expects ≥ 30 counts (a zero is
 //   then rarer than 1 in 10¹³): ΣNᵢ is Poisson(Σλᵢ) and P(pass) = P(ΣN ≤ ⌊n·C·V / L⌋), exact;
-// • unequal in-mask seconds and each exercise expects ≥ 100 counts: Σ(Nᵢ/Vᵢ) is close to normal
-//   with mean Σλᵢ/Vᵢ and variance Σλᵢ/Vᵢ² (normal approximation, labelled so);
+// • otherwise, when each exercise expects ≥ 20 counts (a zero then has odds below 1 in 10⁸) and
+//   the skewness of Σ(Nᵢ/Vᵢ), (Σλᵢ/Vᵢ³) / (Σλᵢ/Vᵢ²)^1.5, is below 0.05: the sum is close to normal
+//   with mean Σλᵢ/Vᵢ and variance Σλᵢ/Vᵢ² (normal approximation, labelled so; the first
+//   Edgeworth correction, skewness/6·|z²−1|·φ(z), is then below 0.004);
 // • otherwise a seeded Monte Carlo of the same model.
 
 export type PassProbabilityMethod = 'exact' | 'normal-approximation' | 'monte-carlo'
 
 export const PASS_PROBABILITY_METHOD_LABELS: Record<PassProbabilityMethod, string> = {
   'exact': 'exact (Poisson sum)',
-  'normal-approximation': 'normal approximation (every exercise expects 100 or more counts)',
+  'normal-approximation': 'normal approximation (every exercise expects 20 or more counts, skewness below 0.05)',
   'monte-carlo': 'Monte Carlo (seeded)'
 }
 
@@ -332,7 +334,8 @@ export interface PassProbability {
 // one-sided 95 % upper bound of a zero count, −ln 0.05 (Garwood 1936): what a zero counts as
 const ZERO_COUNT_BOUND = -Math.log(0.05)
 const EXACT_MIN_EXPECTED = 30
-const NORMAL_MIN_EXPECTED = 100
+const NORMAL_MIN_EXPECTED = 20
+const NORMAL_MAX_SKEWNESS = 0.05
 export const DEFAULT_MONTE_CARLO_RUNS = 4000
 
 interface CountedExercise { volume: number, lambda: number }
@@ -454,11 +457,15 @@ export function passProbability(input: PassProbabilityInput): PassProbability {
   if (smallestExpectedCount >= NORMAL_MIN_EXPECTED) {
     let mean = 0
     let variance = 0
+    let thirdCumulant = 0
     for (const e of exercises) {
       mean += e.lambda / e.volume
-      variance += e.lambda / (e.volume * e.volume)
+      variance += e.lambda / e.volume ** 2
+      thirdCumulant += e.lambda / e.volume ** 3
     }
-    return { ...base, probability: normalCdf((threshold - mean) / Math.sqrt(variance)), method: 'normal-approximation', runs: null }
+    if (thirdCumulant / variance ** 1.5 < NORMAL_MAX_SKEWNESS) {
+      return { ...base, probability: normalCdf((threshold - mean) / Math.sqrt(variance)), method: 'normal-approximation', runs: null }
+    }
   }
   const runs = input.runs ?? DEFAULT_MONTE_CARLO_RUNS
   if (!Number.isInteger(runs) || runs < 1) throw new RangeError('runs must be a whole number ≥ 1')
@@ -514,12 +521,22 @@ export function operatingCharacteristic(input: OperatingCharacteristicInput): Op
   const { fromFitFactor: lo, toFitFactor: hi, points: count } = input
   if (!(lo > 0) || !(hi > lo) || !Number.isFinite(hi)) throw new RangeError('the fit-factor range must be positive and increasing')
   if (!Number.isInteger(count) || count < 2 || count > 400) throw new RangeError('points must be a whole number from 2 to 400')
-  const points: OperatingCharacteristicPoint[] = []
-  for (let i = 0; i < count; i++) {
-    const overall = 10 ** (Math.log10(lo) + i * (Math.log10(hi) - Math.log10(lo)) / (count - 1))
+  let seedStep = 0
+  const at = (overall: number) => {
     const trueFitFactors = scaleProfile(input.protocol, input.profile, overall)
-    // one seed per point, derived from the input seed, so each point is reproducible on its own
-    points.push(passProbability({ ...input, trueFitFactors, seed: ((input.seed ?? 1) + i * 7919) >>> 0 }))
+    // one seed per point, derived from the input seed, so the curve is reproducible
+    return passProbability({ ...input, trueFitFactors, seed: ((input.seed ?? 1) + ++seedStep * 7919) >>> 0 })
+  }
+  const grid = (a: number, b: number, n: number) => Array.from({ length: n }, (_, i) => 10 ** (Math.log10(a) + i * (Math.log10(b) - Math.log10(a)) / (n - 1)))
+  const points = grid(lo, hi, count).map(at)
+  // A sharp rise can fall between two grid points: draw the rise itself as finely again.
+  const first = points.findIndex(p => p.probability > 0.001)
+  const last = points.findIndex(p => p.probability > 0.999)
+  if (first > 0 && last > first) {
+    const from = points[first - 1]!.trueOverall
+    const to = points[Math.min(points.length - 1, last)]!.trueOverall
+    points.push(...grid(from, to, count).slice(1, -1).map(at))
+    points.sort((a, b) => a.trueOverall - b.trueOverall)
   }
   return { points, passLevel: input.passLevel, at5: crossing(points, 0.05), at50: crossing(points, 0.5), at95: crossing(points, 0.95) }
 }
