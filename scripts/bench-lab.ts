@@ -32,15 +32,15 @@ time('planner: both set-ups (figures + 41-point log-log curve each)', 2000, () =
 
 const oc = (ambient: number, flow: number, protocol = STANDARD_PROTOCOL, runs = 1000) => () => operatingCharacteristic({
   protocol, profile: protocol === STANDARD_PROTOCOL ? talkingLeak : 1, ambient, sampleFlowCm3PerMin: flow, passLevel: 100,
-  fromFitFactor: 10, toFitFactor: 1000, points: 61, seed: 7, runs
+  fromFitFactor: 10, toFitFactor: 1000, points: 41, seed: 7, runs
 })
-time('OC curve, 61 points, standard protocol, 1,000 /cm³ at 350 (normal approx.)', 200, oc(1000, 350))
+time('OC curve, 41 points, standard protocol, 1,000 /cm³ at 350 (normal approx.)', 200, oc(1000, 350))
 time('OC curve ×3 as the Repeat page draws it (this set-up, planner A and B)', 100, () => {
   oc(1000, 350)()
   oc(1000, 100)()
   oc(1000, 350)()
 })
-time('OC curve, 61 points, 20 /cm³ at 100 (few counts: Monte Carlo, 1,000 runs a point)', 5, oc(20, 100, MODIFIED_FILTERING_FACEPIECE_PROTOCOL))
+time('OC curve, 41 points, 20 /cm³ at 100 (few counts: Monte Carlo, 1,000 runs a point)', 5, oc(20, 100, MODIFIED_FILTERING_FACEPIECE_PROTOCOL))
 
 const input = { protocol: STANDARD_PROTOCOL, trueFitFactors: talkingLeak, ambient: 1000, sampleFlowCm3PerMin: 350, passLevel: 100, seed: 2024 }
 time('one simulated test second by second (the live run), standard protocol', 200, () => simulateCountTrace(input))

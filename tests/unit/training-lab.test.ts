@@ -2,12 +2,15 @@ import { describe, expect, it } from 'vitest'
 import {
   MODIFIED_ELASTOMERIC_PROTOCOL,
   STANDARD_PROTOCOL,
+  fastRunner,
   harmonicMeanFitFactor,
+  mulberry32,
   operatingCharacteristic,
   passProbability,
   poissonCdf,
   scaleProfile,
   simulateCountTrace,
+  simulateFitTest,
   simulateFitTestResult,
   simulateFitTests
 } from '#shared/utils/compute'
@@ -147,6 +150,22 @@ describe('probability of passing', () => {
     expect(Math.abs(simulated.passProbability - worked.probability)).toBeLessThan(4 * se + 0.01)
   })
 
+  it('bounds the chance far above the level when counts are few (Cantelli\'s inequality, derived)', () => {
+    // expected in-mask counts about 1 per exercise: too few for the normal approximation
+    const input = { ...base, ambient: 1000, protocol: MODIFIED_ELASTOMERIC_PROTOCOL, passLevel: 500, trueFitFactors: 50_000, runs: 4000 }
+    const bounded = passProbability(input)
+    expect(bounded.method).toBe('bound')
+    expect(bounded.probability).toBeGreaterThanOrEqual(0.999)
+    expect(simulateFitTests({ ...input, seed: 3 }).passProbability).toBeGreaterThanOrEqual(bounded.probability - 0.002)
+  })
+
+  it('does not call a wearer safe when a zero count could only show a lower bound below the level', () => {
+    // 20 /cm³ at 100 cm³/min: a zero count bounds FF at only about 20·60/3 = 400 < 500 (derived),
+    // so even a perfect seal cannot be shown to pass
+    const perfect = passProbability({ ...base, ambient: 20, protocol: MODIFIED_ELASTOMERIC_PROTOCOL, passLevel: 500, trueFitFactors: 1e6, runs: 2000 })
+    expect(perfect.probability).toBeLessThan(0.01)
+  })
+
   it('falls back to a seeded Monte Carlo when counts are few, and agrees with the full simulation', () => {
     const input = { ...base, ambient: 20, protocol: MODIFIED_ELASTOMERIC_PROTOCOL, passLevel: 500, trueFitFactors: 500, runs: 4000 }
     const mc = passProbability(input)
@@ -199,6 +218,22 @@ describe('simulated counts', () => {
     expect(trace.seconds.filter(s => s.exerciseIndex === STANDARD_PROTOCOL.exercises.findIndex(e => e.key === 'grimace')).every(s => s.count === null)).toBe(true)
     expect(trace.result.ok).toBe(true)
     expect(simulateCountTrace({ ...base, trueFitFactors: 150, seed: 5 })).toEqual(trace)
+  })
+
+  it.each([
+    { protocol: STANDARD_PROTOCOL, ambient: 1000, flow: 100, ff: 120 },
+    { protocol: STANDARD_PROTOCOL, ambient: 30, flow: 100, ff: 900 },
+    { protocol: MODIFIED_ELASTOMERIC_PROTOCOL, ambient: 1000, flow: 350, ff: 450 }
+  ])('bulk runs agree with computeFitTest run by run ($protocol.key, C=$ambient, Q=$flow, FF=$ff)', ({ protocol, ambient, flow, ff }) => {
+    const input = { protocol, ambient, sampleFlowCm3PerMin: flow, passLevel: 500, trueFitFactors: ff }
+    const run = fastRunner({ ...input, seed: 0 })
+    for (let seed = 1; seed <= 40; seed++) {
+      const full = simulateFitTest({ ...input, seed })
+      const fast = run(mulberry32(seed))
+      expect(fast.overall).toBeCloseTo(full.overall!.value, 9)
+      expect(fast.isLowerBound).toBe(full.overall!.isLowerBound)
+      expect(fast.pass).toBe(full.pass)
+    }
   })
 
   it('gives the same runs for the same seed', () => {

@@ -1,7 +1,7 @@
 import { quantileSorted } from 'simple-statistics'
 import { sampleVolumeCm3 } from './counting-stats'
 import type { FitFactorValue } from './fit-factor'
-import { harmonicMeanFitFactor, meetsPassLevel } from './fit-factor'
+import { exerciseFitFactor, harmonicMeanFitFactor, meanAmbient, meetsPassLevel, zeroCountFitFactorBound } from './fit-factor'
 import type { ExerciseInput, FitTestResult } from './fit-test'
 import { computeFitTest } from './fit-test'
 import type { PhaseWindow, Protocol } from './protocols'
@@ -246,6 +246,69 @@ export function logHistogram(sortedValues: ArrayLike<number>, bins = 40): LogHis
   return { lowerEdges: counts.map((_, i) => 10 ** (lo + i * width)), upperEdge: 10 ** hi, counts }
 }
 
+// The bulk path of the simulator: the same draws in the same order as simulateOnce and the same
+// formulas as computeFitTest (mean ambient, ambient ÷ in-mask, the zero-count lower bound, the
+// harmonic mean, ≥ the level), without building a full result per run. A unit test holds it to
+// computeFitTest run by run.
+export function fastRunner(input: SimulationInput): ((random: RandomSource) => { overall: number | null, isLowerBound: boolean, pass: boolean }) & { trueOverall: number } {
+  const { protocol, ambient, passLevel } = input
+  const flow = input.sampleFlowCm3PerMin
+  const timeline = protocolTimeline(protocol)
+  const plan = protocol.ambientPlan
+  const ambientPhases = timeline.ambientPhases
+  const phaseIndex = new Map(ambientPhases.map((ph, i) => [ph, i]))
+  const steps = timeline.exercises.filter(w => w.counted && w.mask).map((w) => {
+    const maskSeconds = w.mask!.endSeconds - w.mask!.startSeconds
+    const trueFitFactor = trueFactorFor(input, w.exerciseKey)
+    const volume = sampleVolumeCm3(flow, maskSeconds)
+    const ambientOf = (ph: PhaseWindow | null) => ({ index: ph ? phaseIndex.get(ph)! : -1, volume: sampleVolumeCm3(flow, ph ? ph.endSeconds - ph.startSeconds : maskSeconds) })
+    return { trueFitFactor, volume, expected: ambient * volume / trueFitFactor, before: ambientOf(w.ambientBefore), after: ambientOf(w.ambientAfter) }
+  })
+  const measured = new Float64Array(ambientPhases.length)
+  const known = new Uint8Array(ambientPhases.length)
+  const ffs = new Array<number>(steps.length)
+  const runner = (random: RandomSource) => {
+    known.fill(0)
+    const measure = (a: { index: number, volume: number }) => {
+      if (a.index >= 0 && known[a.index]) return measured[a.index]!
+      const value = samplePoisson(ambient * a.volume, random) / a.volume
+      if (a.index >= 0) {
+        measured[a.index] = value
+        known[a.index] = 1
+      }
+      return value
+    }
+    const counts = new Array<number>(steps.length)
+    const ambients = new Array<number>(steps.length)
+    let wholeStart = 0
+    let wholeEnd = 0
+    steps.forEach((st, i) => {
+      counts[i] = samplePoisson(st.expected, random)
+      if (plan === 'per-exercise') ambients[i] = meanAmbient(measure(st.before), measure(st.after))
+      else if (plan === 'continuous') ambients[i] = measure({ index: -1, volume: st.volume })
+      else {
+        wholeStart = measure(st.before)
+        wholeEnd = measure(st.after)
+      }
+    })
+    let isLowerBound = false
+    for (let i = 0; i < steps.length; i++) {
+      const a = plan === 'whole-test' ? meanAmbient(wholeStart, wholeEnd) : ambients[i]!
+      // an ambient sample that counted nothing gives no fit factor: the test has no result
+      if (!(a > 0)) return { overall: null, isLowerBound: false, pass: false }
+      if (counts[i] === 0) {
+        ffs[i] = zeroCountFitFactorBound(a, steps[i]!.volume).value
+        isLowerBound = true
+      } else {
+        ffs[i] = exerciseFitFactor(a, counts[i]! / steps[i]!.volume)
+      }
+    }
+    const overall = harmonicMeanFitFactor(ffs)
+    return { overall, isLowerBound, pass: meetsPassLevel(overall, passLevel) }
+  }
+  return Object.assign(runner, { trueOverall: harmonicMeanFitFactor(steps.map(st => st.trueFitFactor)) })
+}
+
 // K simulated tests from one seeded generator, summarized for the training lab.
 export function simulateFitTests(input: SimulationInput & { runs: number }): SimulationSummary {
   validate(input)
@@ -254,16 +317,15 @@ export function simulateFitTests(input: SimulationInput & { runs: number }): Sim
   const overalls = new Float64Array(input.runs)
   let passCount = 0
   let lowerBoundRuns = 0
-  let trueOverall = 0
-  let truePass = false
+  const runOnce = fastRunner(input)
   for (let i = 0; i < input.runs; i++) {
-    const run = simulateOnce(input, random)
-    overalls[i] = run.overall?.value ?? 0
+    const run = runOnce(random)
+    overalls[i] = run.overall ?? 0
     if (run.pass) passCount++
-    if (run.overall?.isLowerBound) lowerBoundRuns++
-    trueOverall = run.trueOverall
-    truePass = run.truePass
+    if (run.isLowerBound) lowerBoundRuns++
   }
+  const trueOverall = runOnce.trueOverall
+  const truePass = meetsPassLevel(trueOverall, input.passLevel)
   overalls.sort()
   const sorted = Array.from(overalls)
   return {
@@ -300,13 +362,17 @@ export function simulateFitTests(input: SimulationInput & { runs: number }): Sim
 //   the skewness of Σ(Nᵢ/Vᵢ), (Σλᵢ/Vᵢ³) / (Σλᵢ/Vᵢ²)^1.5, is below 0.05: the sum is close to normal
 //   with mean Σλᵢ/Vᵢ and variance Σλᵢ/Vᵢ² (normal approximation, labelled so; the first
 //   Edgeworth correction, skewness/6·|z²−1|·φ(z), is then below 0.004);
+// • otherwise, far from the level: Cantelli's one-sided inequality bounds the chance of the other
+//   outcome by σ²/(σ² + d²), d the distance from the mean of Σ(Nᵢ/Vᵢ) to the threshold (less the
+//   most zeros can add, Σ 2.9957/Vᵢ, on the passing side); when that is ≤ 0.1 % the bound is given;
 // • otherwise a seeded Monte Carlo of the same model.
 
-export type PassProbabilityMethod = 'exact' | 'normal-approximation' | 'monte-carlo'
+export type PassProbabilityMethod = 'exact' | 'normal-approximation' | 'bound' | 'monte-carlo'
 
 export const PASS_PROBABILITY_METHOD_LABELS: Record<PassProbabilityMethod, string> = {
   'exact': 'exact (Poisson sum)',
   'normal-approximation': 'normal approximation (every exercise expects 20 or more counts, skewness below 0.05)',
+  'bound': 'within 0.1 % of certain (Cantelli\'s inequality)',
   'monte-carlo': 'Monte Carlo (seeded)'
 }
 
@@ -336,6 +402,7 @@ const ZERO_COUNT_BOUND = -Math.log(0.05)
 const EXACT_MIN_EXPECTED = 30
 const NORMAL_MIN_EXPECTED = 20
 const NORMAL_MAX_SKEWNESS = 0.05
+const BOUND_TOLERANCE = 0.001
 export const DEFAULT_MONTE_CARLO_RUNS = 4000
 
 interface CountedExercise { volume: number, lambda: number }
@@ -467,6 +534,19 @@ export function passProbability(input: PassProbabilityInput): PassProbability {
       return { ...base, probability: normalCdf((threshold - mean) / Math.sqrt(variance)), method: 'normal-approximation', runs: null }
     }
   }
+  let mean = 0
+  let variance = 0
+  let zeroShift = 0
+  for (const e of exercises) {
+    mean += e.lambda / e.volume
+    variance += e.lambda / e.volume ** 2
+    zeroShift += ZERO_COUNT_BOUND / e.volume
+  }
+  const passSide = threshold - zeroShift - mean
+  const failSide = mean - threshold
+  const cantelli = (d: number) => variance / (variance + d * d)
+  if (passSide > 0 && cantelli(passSide) <= BOUND_TOLERANCE) return { ...base, probability: 1 - cantelli(passSide), method: 'bound', runs: null }
+  if (failSide > 0 && cantelli(failSide) <= BOUND_TOLERANCE) return { ...base, probability: cantelli(failSide), method: 'bound', runs: null }
   const runs = input.runs ?? DEFAULT_MONTE_CARLO_RUNS
   if (!Number.isInteger(runs) || runs < 1) throw new RangeError('runs must be a whole number ≥ 1')
   const probability = monteCarloPassProbability(exercises, threshold, runs, mulberry32(input.seed ?? 1))
