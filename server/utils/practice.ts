@@ -7,7 +7,7 @@ import type { FitTestEntry } from '#shared/utils/fit-test-schemas'
 export type PracticeTestRow = typeof schema.practiceTests.$inferSelect
 
 function notFound(what: string): never {
-  throw createError({ statusCode: 404, message: `No such ${what} in your organization.` })
+  throw httpError(404, `No such ${what} in your organization.`)
 }
 
 export async function findPracticeSet(organizationId: string, id: string) {
@@ -75,13 +75,13 @@ export function assertEntryFits(protocol: Protocol, entry: FitTestEntry | undefi
   const keys = new Set(protocol.exercises.map(e => e.key))
   const stranger = entry.exercises.find(e => !keys.has(e.exerciseKey))
   if (stranger) {
-    throw createError({ statusCode: 400, message: 'Check the results: an exercise does not belong to this protocol.', data: { fieldErrors: { entry: 'An exercise does not belong to this protocol.' } } })
+    throw httpError(400, 'Check the results: an exercise does not belong to this protocol.', { fieldErrors: { entry: 'An exercise does not belong to this protocol.' } })
   }
   if (entry.mode === 'qualitative') {
-    throw createError({ statusCode: 400, message: 'Practice tests are quantitative: type per exercise or paste a count series.', data: { fieldErrors: { 'entry.mode': 'Choose grid or series.' } } })
+    throw httpError(400, 'Practice tests are quantitative: type per exercise or paste a count series.', { fieldErrors: { 'entry.mode': 'Choose grid or series.' } })
   }
 }
 
 export function practiceStaleError() {
-  return createError({ statusCode: 409, message: 'This practice test was saved elsewhere after you opened it. Reload to see the newer version; your typing is still on screen.' })
+  return httpError(409, 'This practice test was saved elsewhere after you opened it. Reload to see the newer version; your typing is still on screen.')
 }

@@ -1,6 +1,8 @@
 // The training lab's inputs: what a trainer may type, the ranges the lab accepts, the leak
 // patterns offered as presets, and the set-up carried in a shared link. Pure: no Vue, no Nitro.
 import type { CountingConditions, Protocol } from './compute'
+import type { DecimalMark } from './number-reader'
+import { readTypedNumber } from './number-reader'
 import {
   BUILT_IN_PROTOCOLS,
   expectedInMaskCount,
@@ -8,21 +10,11 @@ import {
   sampleSecondsForFitFactor
 } from './compute'
 
-/** One function reads every number typed in the lab, so the program's reader drops in here. */
-export function readLabNumber(text: string): { ok: true, value: number } | { ok: false, message: string } {
-  const trimmed = text.trim().replace(/\s+/g, '')
-  if (trimmed === '') return { ok: false, message: 'Enter a number.' }
-  // A comma is a thousands separator in groups of three ("12,500"); anything else is refused.
-  if (trimmed.includes(',') && !/^[+-]?\d{1,3}(,\d{3})+(\.\d+)?$/.test(trimmed)) {
-    return { ok: false, message: `Read "${text.trim()}": write the number with a point for decimals, e.g. 1.5.` }
-  }
-  const plain = trimmed.replace(/,/g, '')
-  if (!/^[+-]?(\d+\.?\d*|\.\d+)(e[+-]?\d+)?$/i.test(plain)) {
-    return { ok: false, message: `Read "${text.trim()}": use digits only, without units or signs such as %.` }
-  }
-  const value = Number(plain)
-  if (!Number.isFinite(value)) return { ok: false, message: 'That number is too large.' }
-  return { ok: true, value }
+/** Every number typed in the lab goes through the program's one reader (point as decimal mark). */
+export function readLabNumber(text: string, decimalMark: DecimalMark = 'point'): { ok: true, value: number } | { ok: false, message: string } {
+  const read = readTypedNumber(text, { decimalMark })
+  if (read.ok) return { ok: true, value: read.value }
+  return { ok: false, message: read.empty ? 'Enter a number.' : read.message }
 }
 
 export interface LabFieldRule {

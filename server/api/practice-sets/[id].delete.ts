@@ -16,6 +16,6 @@ export default defineEventHandler(async (event) => {
     await writeAudit(tx, caller, { entityType: 'practice-set', entityId: id, action: 'cleared', before: summary })
     return summary
   })
-  if (!cleared) throw createError({ statusCode: 404, message: 'No such practice set in your organization.' })
+  if (!cleared) throw httpError(404, 'No such practice set in your organization.')
   return { cleared }
 })

@@ -8,7 +8,7 @@ export default defineEventHandler(async (event) => {
   const { id } = parseParams(event, idParamSchema)
   const { version, ...changes } = await parseBody(event, updatePracticeTestSchema)
   const before = await findPracticeTest(caller.organizationId, id)
-  if (before.status !== 'draft') throw createError({ statusCode: 409, message: 'This practice test is finished. Start a new practice test to try again.' })
+  if (before.status !== 'draft') throw httpError(409, 'This practice test is finished. Start a new practice test to try again.')
   if (before.version !== version) throw practiceStaleError()
   assertEntryFits(before.protocol as Protocol, changes.entry)
   const next = { ...before, entry: changes.entry ?? before.entry, seriesText: changes.seriesText === undefined ? before.seriesText : changes.seriesText }

@@ -7,12 +7,12 @@ export default defineEventHandler(async (event) => {
   const { id } = parseParams(event, idParamSchema)
   const { version } = await parseBody(event, finishPracticeTestSchema)
   const row = await findPracticeTest(caller.organizationId, id)
-  if (row.status !== 'draft') throw createError({ statusCode: 409, message: 'This practice test is already finished.' })
+  if (row.status !== 'draft') throw httpError(409, 'This practice test is already finished.')
   if (row.version !== version) throw practiceStaleError()
   const { evaluation, stored } = evaluatePractice(row)
   if (!evaluation.result.ok) {
     const first = evaluation.result.issues.find(i => i.severity === 'error')?.message ?? evaluation.seriesIssues.find(i => i.severity === 'error')?.message
-    throw createError({ statusCode: 409, message: `The practice test cannot be finished yet: ${first ?? 'some results are missing'}.` })
+    throw httpError(409, `The practice test cannot be finished yet: ${first ?? 'some results are missing'}.`)
   }
   const t = schema.practiceTests
   const done = await useDb().transaction(async (tx) => {
