@@ -16,9 +16,8 @@ export function useInsightFilters() {
   watch(() => parsed.value.dropped, (dropped) => {
     if (dropped.length === 0) return
     resetMessage.value = `Some filters in the address could not be read and were reset: ${dropped.map(d => d.message).join(' ')}`
-    const query = { ...route.query }
-    for (const d of dropped) delete query[d.field]
-    router.replace({ query })
+    const droppedFields = new Set(dropped.map(d => d.field))
+    router.replace({ query: Object.fromEntries(Object.entries(route.query).filter(([k]) => !droppedFields.has(k))) })
   }, { immediate: true })
 
   /** The query string the API gets: only the set fields. */

@@ -21,8 +21,8 @@ export function insightScope(organizationId: string, f: InsightFilters, opts: { 
     sql`ft.passed is not null`
   ]
   if (f.siteId) parts.push(sql`ft.site_id = ${f.siteId}`)
-  if (f.from) parts.push(sql`ft.performed_at >= ${f.from}::date::timestamptz`)
-  if (f.to) parts.push(sql`ft.performed_at < (${f.to}::date + 1)::timestamptz`)
+  if (f.from) parts.push(sql`ft.performed_at >= (${f.from}::date::timestamp at time zone 'UTC')`)
+  if (f.to) parts.push(sql`ft.performed_at < ((${f.to}::date + 1)::timestamp at time zone 'UTC')`)
   if (f.protocolKey) parts.push(sql`ft.protocol_key = ${f.protocolKey}`)
   if (f.respiratorModelId) parts.push(sql`ft.respirator_model_id = ${f.respiratorModelId}`)
   if (f.respiratorSize) parts.push(sql`ft.respirator_size = ${f.respiratorSize}`)
@@ -157,7 +157,7 @@ export async function driftingPeople(db: SqlRunner, organizationId: string, f: I
     ),
     judged as (
       select fits.*, l.y as latest_y, l.pass_level, l.id as latest_id,
-        extract(epoch from coalesce(l.due_on::timestamptz, l.performed_at)) / 31557600.0 as due_t,
+        extract(epoch from coalesce(l.due_on::timestamp at time zone 'UTC', l.performed_at)) / 31557600.0 as due_t,
         coalesce(l.due_on, (l.performed_at at time zone 'UTC')::date) as next_due_on
       from fits join groups l on l.person_id = fits.person_id and l.respirator_model_id = fits.respirator_model_id and l.latest_rank = 1
     ),
@@ -258,4 +258,3 @@ export async function coverageSummaries(db: SqlRunner, organizationId: string, f
     rows: r.map(x => ({ counterId: String(x.counter_id), counterSerial: String(x.serial_number), period: String(x.period), tests: int(x.tests), covered: int(x.covered) }))
   }
 }
-

@@ -15,7 +15,7 @@ export const insightFiltersSchema = z.object({
   to: z.preprocess(emptyToUndefined, z.iso.date({ error: 'Give the end date as YYYY-MM-DD.' }).optional()),
   protocolKey: z.preprocess(emptyToUndefined, z.string().trim().min(1).max(80, { error: 'Choose a protocol from the list.' }).regex(/^[a-z0-9-]+$/, { error: 'Choose a protocol from the list.' }).optional()),
   respiratorModelId: z.preprocess(emptyToUndefined, z.uuid({ error: 'Choose a respirator model from the list.' }).optional()),
-  respiratorSize: z.preprocess(emptyToUndefined, z.string().trim().min(1).max(40, { error: 'A size has at most 40 characters.' }).regex(/^[^\u0000-\u001f]*$/, { error: 'Choose a size from the list.' }).optional()),
+  respiratorSize: z.preprocess(emptyToUndefined, z.string().trim().min(1).max(40, { error: 'A size has at most 40 characters.' }).refine(v => ![...v].some(c => c.charCodeAt(0) < 32), { error: 'Choose a size from the list.' }).optional()),
   testerUserId: z.preprocess(emptyToUndefined, z.uuid({ error: 'Choose a tester from the list.' }).optional()),
   bucket: z.preprocess(emptyToUndefined, z.enum(['month', 'quarter'], { error: 'Group by month or quarter.' }).default('month'))
 }).refine(f => !f.from || !f.to || f.from <= f.to, { error: 'The start date must not be after the end date.', path: ['to'] })
