@@ -86,6 +86,6 @@ export async function reviewQueue(organizationId: string, f: InsightFilters, lim
 export function assertReviewable(row: FitTestRow) {
   if (row.status !== 'finished') {
     const why = row.status === 'draft' ? 'it is still a draft' : row.status === 'superseded' ? 'a correction replaced it: review the current revision' : 'it was withdrawn'
-    throw createError({ statusCode: 409, message: `This result cannot be reviewed: ${why}.` })
+    throw httpError(409, `This result cannot be reviewed: ${why}.`)
   }
 }

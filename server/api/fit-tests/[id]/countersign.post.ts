@@ -12,7 +12,7 @@ export default defineEventHandler(async (event) => {
     const [signed] = await tx.insert(schema.countersigns)
       .values({ organizationId: caller.organizationId, fitTestId: row.id, recordId: row.recordId, signedByUserId: caller.id, comment: comment || null })
       .onConflictDoNothing().returning()
-    if (!signed) throw createError({ statusCode: 409, message: 'This revision is already countersigned.' })
+    if (!signed) throw httpError(409, 'This revision is already countersigned.')
     await writeAudit(tx, caller, { entityType: 'fit-test', entityId: row.id, action: 'countersigned', after: { revision: row.revision, comment: signed.comment } })
     return signed
   })

@@ -11,7 +11,7 @@ export default defineEventHandler(async (event) => {
   const { id } = parseParams(event, idParamSchema)
   const p = schema.people
   const [person] = await useDb().select({ id: p.id, fullName: p.fullName }).from(p).where(and(eq(p.organizationId, caller.organizationId), eq(p.id, id)))
-  if (!person) throw createError({ statusCode: 404, message: 'No such person in your organization.' })
+  if (!person) throw httpError(404, 'No such person in your organization.')
   const t = schema.fitTests
   const tests = await useDb().select({
     id: t.id, performedAt: t.performedAt, respiratorModelId: t.respiratorModelId, respiratorMake: t.respiratorMake, respiratorModel: t.respiratorModel,

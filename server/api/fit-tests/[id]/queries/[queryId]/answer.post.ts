@@ -14,8 +14,8 @@ export default defineEventHandler(async (event) => {
     if (!answered) {
       const [exists] = await tx.select({ id: q.id }).from(q).where(and(eq(q.id, queryId), eq(q.organizationId, caller.organizationId), eq(q.recordId, row.recordId)))
       throw exists
-        ? createError({ statusCode: 409, message: 'This query has already been answered.' })
-        : createError({ statusCode: 404, message: 'No such query on this record.' })
+        ? httpError(409, 'This query has already been answered.')
+        : httpError(404, 'No such query on this record.')
     }
     await writeAudit(tx, caller, { entityType: 'fit-test', entityId: answered.fitTestId, action: 'query-answered', after: { queryId, answer } })
   })
