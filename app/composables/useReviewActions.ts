@@ -1,21 +1,18 @@
-/** Countersign, query and answer for one fit-test revision; each refreshes the given keys. */
+/**
+ * Countersign, query and answer for one fit-test revision. Call `refresh()` afterwards: a form in
+ * the review queue tells its page first, since the refresh removes its row (and the form with it).
+ */
 export function useReviewActions(refreshKeys: () => string[]) {
-  const refresh = () => refreshNuxtData(refreshKeys())
   return {
-    async countersign(fitTestId: string, comment: string) {
-      const done = await $fetch(`/api/fit-tests/${fitTestId}/countersign`, { method: 'POST', body: { comment } })
-      await refresh()
-      return done
+    refresh: () => refreshNuxtData(refreshKeys()),
+    countersign(fitTestId: string, comment: string) {
+      return $fetch(`/api/fit-tests/${fitTestId}/countersign`, { method: 'POST', body: { comment } })
     },
-    async raiseQuery(fitTestId: string, question: string) {
-      const done = await $fetch(`/api/fit-tests/${fitTestId}/queries`, { method: 'POST', body: { question } })
-      await refresh()
-      return done
+    raiseQuery(fitTestId: string, question: string) {
+      return $fetch(`/api/fit-tests/${fitTestId}/queries`, { method: 'POST', body: { question } })
     },
-    async answerQuery(fitTestId: string, queryId: string, answer: string) {
-      const done = await $fetch(`/api/fit-tests/${fitTestId}/queries/${queryId}/answer`, { method: 'POST', body: { answer } })
-      await refresh()
-      return done
+    answerQuery(fitTestId: string, queryId: string, answer: string) {
+      return $fetch(`/api/fit-tests/${fitTestId}/queries/${queryId}/answer`, { method: 'POST', body: { answer } })
     }
   }
 }

@@ -26,6 +26,7 @@ describe('a hygienist reviews the program', () => {
     await screenshot(page, 'insights-one-model')
     await drift.getByRole('button', { name: 'Table' }).click()
     await expect(drift.getByRole('table').textContent()).resolves.toContain('Maren Tollbrook')
+    await drift.getByRole('button', { name: 'Chart' }).click()
     await drift.getByRole('link', { name: 'Maren Tollbrook' }).click()
     await page.waitForURL(/\/people\/[0-9a-f-]{36}/)
     const trend = page.locator('#fit-trend')
