@@ -13,6 +13,7 @@ import { hashPassword } from './hash'
 import type { SeedDb } from './db'
 import { schema } from './db'
 import type { SeededOrganization } from './demo'
+import { insertCheck } from './equipment'
 
 interface Scenario {
   /** Model and size that fits poorly. */
@@ -105,10 +106,25 @@ export async function seedInsights(db: SeedDb, orgs: SeededOrganization[], onPro
       await db.insert(schema.fitTests).values(tests.slice(i, i + 100))
       await db.insert(schema.fitCards).values(cards.slice(i, i + 100))
     }
+    await checkBeforeEachDay(db, org, tests.map(t => ({ counterId: t.counterId!, siteId: t.siteId, at: t.performedAt as Date })), sites[0]!.timeZone)
     onProgress(`${orgRow!.name}: ${tests.length} fit tests for insights, a second tester, a drifting fit`)
     await fillExerciseRows(db, org.id)
     await countersignOlder(db, org, now - 21 * DAY)
   }
+}
+
+/** A passing counter check 40 minutes before the first of these tests on each day, so they are covered. */
+async function checkBeforeEachDay(db: SeedDb, org: SeededOrganization, tests: { counterId: string, siteId: string, at: Date }[], timeZone: string) {
+  const [template] = await db.select().from(schema.readinessTemplates)
+    .where(and(eq(schema.readinessTemplates.organizationId, org.id), eq(schema.readinessTemplates.scope, 'counter')))
+  if (!template) return
+  const first = new Map<string, { counterId: string, siteId: string, at: Date }>()
+  for (const t of tests) {
+    const key = `${t.counterId}|${localDate(t.at, timeZone)}`
+    const known = first.get(key)
+    if (!known || t.at < known.at) first.set(key, t)
+  }
+  for (const day of first.values()) await insertCheck(db, org, template, { counterId: day.counterId, siteId: day.siteId }, new Date(day.at.getTime() - 40 * 60_000))
 }
 
 /** Per-exercise insight rows of every finished revision, recomputed from the raw inputs. */
