@@ -5,6 +5,7 @@ import { schema } from './db'
 import { seedFitTests } from './fit-tests'
 import { hashPassword } from './hash'
 import { seedEquipment } from './equipment'
+import { seedInsights } from './insights'
 
 export interface SeededOrganization {
   id: string
@@ -39,5 +40,6 @@ export async function seedDemo(db: SeedDb, onProgress: (text: string) => void = 
   }
   await seedEquipment(db, seeded)
   await seedFitTests(db, seeded, onProgress)
+  await seedInsights(db, seeded, onProgress)
   return seeded
 }

@@ -8,6 +8,8 @@ declare module 'jstat' {
     normal: {
       inv(p: number, mean: number, sd: number): number
     }
+    /** Regularized incomplete beta function I_x(a, b). */
+    ibeta(x: number, a: number, b: number): number
   }
   const jStat: JStatStatic
   export default jStat

@@ -30,6 +30,7 @@ export default defineEventHandler(async (event) => {
     await tx.update(t).set({ status: 'superseded' })
       .where(and(eq(t.recordId, row.recordId), ne(t.id, id), eq(t.status, 'finished')))
     await ensureCard(tx, caller.organizationId, row.recordId)
+    await recordExerciseResults(tx, caller.organizationId, id, evaluation?.result)
     await writeAudit(tx, caller, { entityType: 'fit-test', entityId: id, action: 'finished', after: { revision: row.revision, overallFitFactor: stored.overallFitFactor, passed: stored.passed, passLevel: stored.passLevel, dueOn: stored.dueOn } })
   })
   return fitTestView(caller, await findFitTest(caller.organizationId, id))

@@ -1,0 +1,120 @@
+// `npm run bench:insights`: builds a scratch database (sealwright_bench_insights on the private
+// cluster) with about 143,000 fit tests and 10⁶ exercise rows of invented data, then times every
+// insights panel with the same SQL the routes run. Prints figures; asserts nothing.
+// SEALWRIGHT_BENCH_TESTS changes the size; SEALWRIGHT_BENCH_REUSE=1 keeps an existing scratch database.
+import { performance } from 'node:perf_hooks'
+import { fileURLToPath } from 'node:url'
+import { sql } from 'drizzle-orm'
+import { drizzle } from 'drizzle-orm/node-postgres'
+import pg from 'pg'
+import * as q from '../server/database/insight-queries'
+import type { InsightFilters } from '../shared/utils/insight-schemas'
+import { applyMigrations, ensureDatabase } from './lib/database.mjs'
+import { ensureDatabaseServer } from './lib/services.mjs'
+
+const projectDir = fileURLToPath(new URL('..', import.meta.url))
+const TESTS = Number(process.env.SEALWRIGHT_BENCH_TESTS || 143_000)
+const PEOPLE = Math.max(100, Math.round(TESTS / 7))
+const reuse = process.env.SEALWRIGHT_BENCH_REUSE === '1'
+const port = Number(process.env.SEALWRIGHT_PG_PORT || 54329)
+
+const server = await ensureDatabaseServer(projectDir, { externalUrl: process.env.NUXT_BENCH_DATABASE_URL, port })
+const url = await ensureDatabase(server.serverUrl, 'sealwright_bench_insights', { recreate: !reuse })
+await applyMigrations(url)
+const pool = new pg.Pool({ connectionString: url, max: 6 })
+const db = drizzle(pool)
+const step = async (label: string, query: ReturnType<typeof sql>) => {
+  const started = performance.now()
+  await db.execute(query)
+  console.log(`  ${label}: ${((performance.now() - started) / 1000).toFixed(1)} s`)
+}
+
+const ORG = '00000000-0000-4000-8000-000000000001'
+const existing = await db.execute(sql`select count(*)::int as n from fit_test_exercise_results`)
+if (Number((existing.rows[0] as { n: number }).n) === 0) {
+  console.log(`Building ${TESTS.toLocaleString('en')} tests for ${PEOPLE.toLocaleString('en')} people (invented data)…`)
+  await step('organization, sites, users, models, counters, people', sql.raw(`
+    select setseed(0.42);
+    insert into organizations (id, name, slug) values ('${ORG}', 'Bench Works (invented)', 'bench-works');
+    insert into sites (id, organization_id, name, time_zone)
+      select md5('site' || i)::uuid, '${ORG}', 'Site ' || i, case when i % 2 = 0 then 'America/Chicago' else 'America/New_York' end from generate_series(1, 4) i;
+    insert into users (id, organization_id, email, display_name, role, password_hash)
+      select md5('tester' || i)::uuid, '${ORG}', 'tester' || i || '@bench.example', 'Tester ' || i, 'tester', 'x' from generate_series(1, 20) i;
+    insert into respirator_models (id, organization_id, make, model, respirator_class, sizes)
+      select md5('model' || i)::uuid, '${ORG}', 'Bench Make ' || (i % 3), 'BM-' || i, case when i <= 5 then 'elastomeric-half-mask' else 'elastomeric-full-facepiece' end, '["S","M","L"]'::jsonb from generate_series(1, 8) i;
+    insert into counters (id, organization_id, site_id, serial_number, description, sample_flow_cm3_per_min)
+      select md5('counter' || i)::uuid, '${ORG}', md5('site' || (1 + i % 4))::uuid, 'BC-' || i, 'Bench counter', 350 from generate_series(1, 10) i;
+    insert into people (id, organization_id, site_id, full_name, medical_clearance_status)
+      select md5('person' || i)::uuid, '${ORG}', md5('site' || (1 + i % 4))::uuid, 'Person ' || i, 'cleared' from generate_series(1, ${PEOPLE}) i;
+  `))
+  await step('exercise factors', sql.raw(`
+    select setseed(0.43);
+    create unlogged table bench_ex as
+      select i, e.key, e.movement,
+        exp(ln(900) + 0.9 * sin(i % ${PEOPLE}) + e.offset_ln + 0.5 * (random() + random() + random() - 1.5) * 2) as ff
+      from generate_series(1, ${TESTS}) i
+      cross join (values ('normal-breathing-start', 'normal-breathing', 0.0), ('deep-breathing', 'deep-breathing', -0.2), ('head-side-to-side', 'head-side-to-side', -0.3),
+        ('head-up-and-down', 'head-up-and-down', -0.1), ('talking', 'talking', -0.5), ('bending-over', 'bending', -0.6), ('normal-breathing-end', 'normal-breathing', 0.0)) e(key, movement, offset_ln);
+  `))
+  await step('fit tests', sql.raw(`
+    insert into fit_tests (id, organization_id, record_id, status, version, person_id, site_id, tester_user_id, counter_id, respirator_model_id,
+      respirator_make, respirator_model, respirator_class, respirator_size, kind, protocol_key, performed_at, pre_test, entry,
+      pass_level, overall_fit_factor, overall_is_lower_bound, passed, limiting_exercise_key, due_on, finished_at)
+    select md5('test' || a.i)::uuid, '${ORG}', md5('record' || a.i)::uuid, 'finished', 2, md5('person' || (1 + a.i % ${PEOPLE}))::uuid,
+      md5('site' || (1 + (a.i % ${PEOPLE}) % 4))::uuid, md5('tester' || (1 + a.i % 20))::uuid, md5('counter' || (1 + a.i % 10))::uuid, md5('model' || m)::uuid,
+      'Bench Make ' || (m % 3), 'BM-' || m, case when m <= 5 then 'elastomeric-half-mask' else 'elastomeric-full-facepiece' end, (array['S','M','L'])[1 + a.i % 3],
+      'quantitative', 'osha-standard', at, '{}'::jsonb, '{}'::jsonb,
+      case when m <= 5 then 100 else 500 end, overall, false, overall >= case when m <= 5 then 100 else 500 end, limiting,
+      case when overall >= case when m <= 5 then 100 else 500 end then (at + interval '1 year')::date end, at + interval '9 minutes'
+    from (
+      select i, 7 / sum(1 / ff) as overall, (array_agg(key order by ff))[1] as limiting, 1 + ((i % ${PEOPLE}) % 8) as m,
+        now() - interval '3 years' + ((i / ${PEOPLE}::float) * interval '3 years') + (i % 97) * interval '1 hour' as at
+      from bench_ex group by i
+    ) a;
+  `))
+  await step('exercise rows', sql.raw(`
+    insert into fit_test_exercise_results (fit_test_id, organization_id, exercise_key, movement, fit_factor, is_lower_bound, penetration_share, is_limiting)
+    select md5('test' || i)::uuid, '${ORG}', key, movement, ff, false, (1 / ff) / sum(1 / ff) over (partition by i), row_number() over (partition by i order by ff) = 1
+    from bench_ex;
+    drop table bench_ex;
+  `))
+  await step('readiness checks (one a day per counter, one day in 30 failed)', sql.raw(`
+    insert into readiness_checks (organization_id, template_name, counter_id, site_id, steps, status, started_at, completed_at)
+    select '${ORG}', 'Bench check', md5('counter' || c)::uuid, md5('site' || (1 + c % 4))::uuid, '[]'::jsonb,
+      case when d % 30 = 0 then 'failed' else 'passed' end, day + interval '6 hours', day + interval '6 hours 10 minutes'
+    from generate_series(1, 10) c, generate_series(0, 1100) d, lateral (select date_trunc('day', now() - interval '3 years') + d * interval '1 day' as day) x;
+  `))
+  await step('analyze', sql`analyze`)
+}
+const counts = (await db.execute(sql`select (select count(*) from fit_tests)::int as tests, (select count(*) from fit_test_exercise_results)::int as exercises`)).rows[0] as { tests: number, exercises: number }
+console.log(`Scratch database: ${counts.tests.toLocaleString('en')} fit tests, ${counts.exercises.toLocaleString('en')} exercise rows.`)
+
+const all: InsightFilters = { bucket: 'month' }
+const oneModel: InsightFilters = { bucket: 'month', respiratorModelId: '', from: undefined }
+oneModel.respiratorModelId = (await db.execute(sql`select md5('model3')::uuid::text as id`)).rows.map(r => (r as { id: string }).id)[0]
+const panels: [string, (f: InsightFilters) => Promise<unknown>][] = [
+  ['pass rates', f => q.passRatesByPeriod(db, ORG, f)],
+  ['models and sizes', f => q.modelSummaries(db, ORG, f)],
+  ['exercises', f => q.exerciseSummaries(db, ORG, f)],
+  ['drift', f => q.driftingPeople(db, ORG, f)],
+  ['testers', f => q.testerSummaries(db, ORG, f)],
+  ['coverage', f => q.coverageSummaries(db, ORG, f)]
+]
+async function timed(run: () => Promise<unknown>, rounds = 3) {
+  await run()
+  const samples: number[] = []
+  for (let i = 0; i < rounds; i++) {
+    const started = performance.now()
+    await run()
+    samples.push(performance.now() - started)
+  }
+  return samples.sort((a, b) => a - b)[Math.floor(samples.length / 2)]!
+}
+for (const [label, f] of [['all results', all], ['one model', oneModel]] as const) {
+  console.log(`\nPanels, ${label} (median of 3 after a warm-up, ms; target < 300 each):`)
+  for (const [name, run] of panels) console.log(`  ${name.padEnd(18)} ${(await timed(() => run(f))).toFixed(0).padStart(6)}`)
+  const page = await timed(() => Promise.all(panels.map(([, run]) => run(f))))
+  console.log(`  ${'whole page'.padEnd(18)} ${page.toFixed(0).padStart(6)}  (six panels at once, as the page asks; target < 1000)`)
+}
+await pool.end()
+server.stop()
