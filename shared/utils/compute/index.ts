@@ -18,3 +18,6 @@ export * from './acceptance'
 export * from './headform'
 export * from './selection'
 export * from './summaries'
+export * from './selection-classes'
+// The exposure arithmetic (exposure.ts, exposure-assessment.ts) carries mathjs: import it from
+// '#shared/utils/compute/exposure-assessment' on the pages that need it.
