@@ -13,6 +13,7 @@ export const NAV_ITEMS: NavItem[] = [
   { to: '/fit-tests', label: 'Fit tests', roles: ['tester', 'reviewer', 'trainer'] },
   { to: '/people', label: 'People', roles: ['tester', 'reviewer', 'trainer'] },
   { to: '/fit-tests', label: 'My fit tests', roles: ['wearer'] },
+  { to: '/calculator', label: 'Protection calculator', roles: ['tester', 'reviewer', 'trainer'] },
   { to: '/equipment/checks', label: 'Readiness checks', roles: ['tester', 'reviewer', 'trainer'] },
   { to: '/equipment/headform', label: 'Headform test', roles: ['tester'] },
   { to: '/equipment/masks', label: 'Mask units', roles: ['tester', 'reviewer', 'trainer'] },

@@ -112,17 +112,17 @@ export async function assignmentsOf(organizationId: string, recordId: string) {
 async function passingTestsByPerson(organizationId: string, personIds: string[]) {
   const t = schema.fitTests
   const out = new Map<string, FitRecordSummary[]>()
-  if (!personIds.length) return out
+  if (!personIds.length) return { byPerson: out, rows: [] }
   const rows = await useDb().select({
     id: t.id, personId: t.personId, respiratorClass: t.respiratorClass, make: t.respiratorMake, model: t.respiratorModel,
-    size: t.respiratorSize, performedAt: t.performedAt, dueOn: t.dueOn
+    size: t.respiratorSize, performedAt: t.performedAt, dueOn: t.dueOn, counterId: t.counterId, siteId: t.siteId
   }).from(t).where(and(eq(t.organizationId, organizationId), eq(t.status, 'finished'), eq(t.passed, true), inArray(t.personId, personIds)))
   for (const r of rows) {
     const list = out.get(r.personId) ?? []
     list.push({ id: r.id, respiratorClass: r.respiratorClass, respirator: `${r.make} ${r.model}`, size: r.size, performedOn: r.performedAt.toISOString().slice(0, 10), dueOn: r.dueOn })
     out.set(r.personId, list)
   }
-  return out
+  return { byPerson: out, rows }
 }
 
 export async function protectedPeopleOf(organizationId: string, rows: Pick<AssessmentRow, 'recordId' | 'ruleSet' | 'input' | 'chosenClassKeys'>[], today: string) {
@@ -154,8 +154,17 @@ export async function protectedPeopleOf(organizationId: string, rows: Pick<Asses
     const people = [...(reached.get(row.recordId)?.values() ?? [])]
     out.set(row.recordId, people.map(({ person, via }) => ({
       personId: person.id, fullName: person.fullName, jobTitle: person.jobTitle, via,
-      protection: protectionFor({ allowedClasses, passingFitTests: tests.get(person.id) ?? [], today })
+      protection: protectionFor({ allowedClasses, passingFitTests: tests.byPerson.get(person.id) ?? [], today })
     })))
+  }
+  // A fit test no passing readiness check covers is flagged wherever it is relied on.
+  const relied = new Set([...out.values()].flat().flatMap(p => p.protection.conditions.map(c => c.recordId)).filter(Boolean))
+  const coverage = await findCoverageMany(organizationId, tests.rows.filter(r => relied.has(r.id)))
+  for (const p of [...out.values()].flat()) {
+    for (const c of p.protection.conditions) {
+      const cover = c.recordId ? coverage.get(c.recordId) : undefined
+      if (cover && !cover.covered) p.protection.notes.push(`Flag: the fit test relied on here is not covered. ${cover.message}`)
+    }
   }
   return out
 }

@@ -70,3 +70,18 @@ describe('numbers typed into the calculator', () => {
     expect(r.ok).toBe(false)
   })
 })
+
+describe('the calculator form as typed', () => {
+  it('reads every typed number once, marks what it cannot read, and round-trips a stored input', async () => {
+    const { emptySubstance, readCalculatorDraft, draftFromInput } = await import('#shared/utils/exposure-draft')
+    const substance = { ...emptySubstance(), name: 'Solvent A', exposure: '12,500', limit: '1,5', idlh: '' }
+    const read = readCalculatorDraft({ contaminants: [substance], additiveMixture: true, oxygenDeficient: false })
+    expect(read.readErrors['contaminants.0.limit.value']).toContain('ambiguous')
+    expect(read.asRead['contaminants.0.exposure.value']).toBe('12500')
+    const c = read.input.contaminants[0]!
+    expect(c.exposure).toEqual({ mode: 'single', value: 12500, unit: 'ppm' })
+    expect(c.idlh).toBeNull()
+    const back = draftFromInput(read.input)
+    expect(back.contaminants[0]!.exposure).toBe('12500')
+  })
+})

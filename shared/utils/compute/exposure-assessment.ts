@@ -40,6 +40,9 @@ export const CAUTION_CHANGE_SCHEDULE
 export const CAUTION_MUC_MIXTURE
   = 'Each substance\'s MUC assumes the others are absent; for the mixture the class must cover the mixture index.'
 
+export const UK_IDLH_NOTE
+  = 'Under the UK rule set Sealwright applies the same restriction (positive-pressure breathing apparatus only); confirm it against HSG53 with a competent person.'
+
 export const ASSESSMENT_CAUTIONS: readonly string[] = [
   CAUTION_COMPLETE_PROGRAM,
   CAUTION_MUC_NOT_FOR_IDLH,
@@ -185,7 +188,9 @@ export function evaluateExposureAssessment(input: AssessmentInput): ComputeResul
   const requiredProtectionFactor = mixtureIndex ?? Math.max(...results.map(r => r.hazardRatio))
   const idlhAtmosphere = input.oxygenDeficient || results.some(r => r.atOrAboveIdlh)
   if (idlhAtmosphere) {
-    issues.push(warningIssue('idlh-atmosphere', input.oxygenDeficient ? `The air is oxygen-deficient. ${IDLH_SELECTION_MESSAGE}` : IDLH_SELECTION_MESSAGE, { field: input.oxygenDeficient ? 'oxygenDeficient' : 'contaminants' }))
+    const uk = input.ruleSet === 'uk-hse' ? ` ${UK_IDLH_NOTE}` : ''
+    const message = `${input.oxygenDeficient ? 'The air is oxygen-deficient. ' : ''}${IDLH_SELECTION_MESSAGE}${uk}`
+    issues.push(warningIssue('idlh-atmosphere', message, { field: input.oxygenDeficient ? 'oxygenDeficient' : 'contaminants' }))
   }
 
   const classes = [...selectionClassesFor(input.ruleSet)].sort((a, b) => a.apf - b.apf).map((cls): ClassResult => ({
