@@ -3,7 +3,7 @@ import type { SaveAssessmentInput } from '#shared/utils/exposure-schemas'
 /** Every change to exposure assessments; each refreshes what it touched. */
 export function useExposureAssessmentActions() {
   async function refresh(id?: string) {
-    await Promise.all([refreshNuxtData('exposure-assessments'), id ? refreshNuxtData(`exposure-assessment-${id}`) : Promise.resolve()])
+    await refreshNuxtData(['exposure-assessments', 'exposure-gaps-all', ...(id ? [`exposure-assessment-${id}`] : [])])
   }
   return {
     async create(body: SaveAssessmentInput) {

@@ -126,7 +126,7 @@ describe('exposure assessments', () => {
     expect((await trainer.post(`/api/exposure-assessments/${id}/sign-off`)).status).toBe(403)
     expect((await wearer.get('/api/exposure-assessments')).status).toBe(403)
     expect((await new Client().get('/api/exposure-assessments')).status).toBe(401)
-    expect((await tester.get('/api/exposure-assessments/gaps.csv')).status).toBe(403)
+    expect((await tester.get('/api/protection-gaps.csv')).status).toBe(403)
   })
 
   it('another organization gets 404 and never sees the assessment in its list', async () => {
@@ -166,9 +166,9 @@ describe('who is protected for the job', () => {
     expect(byName['Avery Halfmask'].protection.gap).toContain('Fitted for a half mask')
     expect(byName['Avery Halfmask'].protection.gap).toContain('this job needs a full facepiece')
 
-    const gaps = await reviewer.get(`/api/exposure-assessments/gaps?personId=${half!.id}`)
+    const gaps = await reviewer.get(`/api/protection-gaps?personId=${half!.id}`)
     expect(gaps.body).toHaveLength(1)
-    const csv = await reviewer.fetch('GET', '/api/exposure-assessments/gaps.csv')
+    const csv = await reviewer.fetch('GET', '/api/protection-gaps.csv')
     expect(csv.headers.get('content-type')).toContain('text/csv')
     const text = await csv.text()
     expect(text).toContain('Avery Halfmask')

@@ -1,9 +1,10 @@
 import { create, divideDependencies, multiplyDependencies, unitDependencies } from 'mathjs'
+import type { FactoryFunctionMap, Unit } from 'mathjs'
 import type { ComputeIssue, ComputeResult } from './errors'
 import { checkNonNegative, checkPositive, errorIssue, warningIssue } from './errors'
 
 // Only the unit functions of mathjs, so the rest of the library stays out of the page bundle.
-const { divide, multiply, unit } = create({ divideDependencies, multiplyDependencies, unitDependencies })
+const { divide, multiply, unit } = create({ divideDependencies, multiplyDependencies, unitDependencies } as FactoryFunctionMap)
 
 // Exposure arithmetic for the protection calculator: the 8-hour TWA, the additive-mixture index
 // and ppm ↔ mg/m³. Each function is pure and reports problems as issues naming the field.
@@ -33,14 +34,14 @@ export const TWA_ASSUMPTION
 // so g/mol ÷ L/mol × volume fraction comes out as a mass per volume that converts to mg/m³.
 export function ppmToMgPerM3(ppm: number, molecularWeight: number): number {
   const perVolume = multiply(divide(unit(molecularWeight, 'g/mol'), unit(MOLAR_VOLUME_L_PER_MOL_25C, 'L/mol')), ppm * 1e-6)
-  return (perVolume as ReturnType<typeof unit>).toNumber('mg/m^3')
+  return (perVolume as unknown as Unit).toNumber('mg/m^3')
 }
 
 export function mgPerM3ToPpm(mgPerM3: number, molecularWeight: number): number {
   const moles = divide(unit(mgPerM3, 'mg/m^3'), unit(molecularWeight, 'g/mol'))
   // mathjs gives a plain number once the units cancel to a volume fraction.
   const fraction = multiply(moles, unit(MOLAR_VOLUME_L_PER_MOL_25C, 'L/mol')) as unknown
-  const value = typeof fraction === 'number' ? fraction : (fraction as ReturnType<typeof unit>).toNumber('')
+  const value = typeof fraction === 'number' ? fraction : (fraction as Unit).toNumber('')
   return value * 1e6
 }
 
