@@ -28,7 +28,8 @@ const handler: NitroErrorHandler = (error, event) => {
   setResponseHeader(event, 'Retry-After', 5)
   return send(event, JSON.stringify({
     statusCode: 503,
-    statusMessage: 'The database is not answering. Nothing was saved; try again in a moment.'
+    statusMessage: 'Service Unavailable',
+    message: 'The database is not answering. Nothing was saved; try again in a moment.'
   }))
 }
 

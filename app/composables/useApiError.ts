@@ -4,6 +4,7 @@ import type { FetchError } from 'ofetch'
 export function apiErrorOf(error: unknown): { message: string, fieldErrors: Record<string, string> } {
   const e = error as FetchError<{ statusMessage?: string, message?: string, data?: { fieldErrors?: Record<string, string> } }>
   const body = e?.data
-  const message = body?.statusMessage || body?.message || e?.statusMessage || 'Something went wrong. Try again.'
+  // Routes put the sentence in `message` (see server/utils/errors.ts); statusMessage is only the HTTP reason.
+  const message = body?.message || e?.statusMessage || 'Something went wrong. Try again.'
   return { message, fieldErrors: body?.data?.fieldErrors ?? {} }
 }

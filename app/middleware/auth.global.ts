@@ -18,6 +18,6 @@ export default defineNuxtRouteMiddleware(async (to) => {
   }
   const roles = to.meta.roles
   if (roles && user.value && !roleAllows(user.value.role, roles)) {
-    return abortNavigation(createError({ statusCode: 403, statusMessage: 'Your role does not open this page.' }))
+    return abortNavigation(createError({ statusCode: 403, message: 'Your role does not open this page.' }))
   }
 })

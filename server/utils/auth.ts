@@ -21,7 +21,7 @@ export async function requireRole(event: H3Event, ...allowed: Role[]): Promise<C
   const session = await getUserSession(event)
   const sessionUser = session.user
   if (!sessionUser?.id) {
-    throw createError({ statusCode: 401, statusMessage: 'Sign in to continue.' })
+    throw httpError(401, 'Sign in to continue.')
   }
   const [user] = await useDb()
     .select({
@@ -36,10 +36,10 @@ export async function requireRole(event: H3Event, ...allowed: Role[]): Promise<C
     .where(and(eq(schema.users.id, sessionUser.id), eq(schema.users.organizationId, sessionUser.organizationId)))
   if (!user || !user.active) {
     await clearUserSession(event)
-    throw createError({ statusCode: 401, statusMessage: 'Your account is no longer active. Ask your program administrator.' })
+    throw httpError(401, 'Your account is no longer active. Ask your program administrator.')
   }
   if (allowed.length > 0 && !roleAllows(user.role, allowed)) {
-    throw createError({ statusCode: 403, statusMessage: 'Your role does not allow this.' })
+    throw httpError(403, 'Your role does not allow this.')
   }
   event.context.caller = user
   return user

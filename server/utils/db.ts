@@ -26,7 +26,7 @@ export function useDb(): Database {
   if (!database) {
     const url = useRuntimeConfig().databaseUrl
     if (!url) {
-      throw createError({ statusCode: 503, statusMessage: 'The database is not configured (NUXT_DATABASE_URL is empty).' })
+      throw httpError(503, 'The database is not configured (NUXT_DATABASE_URL is empty).')
     }
     database = createDatabase(url)
   }

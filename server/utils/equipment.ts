@@ -5,7 +5,7 @@ export async function assertSite(organizationId: string, siteId: string | null |
   if (!siteId) return
   const [row] = await useDb().select({ id: schema.sites.id }).from(schema.sites)
     .where(and(eq(schema.sites.organizationId, organizationId), eq(schema.sites.id, siteId)))
-  if (!row) throw createError({ statusCode: 400, statusMessage: 'Check the form: choose one of your sites.', data: { fieldErrors: { siteId: 'Choose one of your sites.' } } })
+  if (!row) throw httpError(400, 'Check the form: choose one of your sites.', { fieldErrors: { siteId: 'Choose one of your sites.' } })
 }
 
 /** The IANA time zone deciding a result's calendar day; UTC when no site is known. */
@@ -27,7 +27,7 @@ export async function listCounters(organizationId: string, { includeRetired = fa
 export async function findCounter(organizationId: string, id: string) {
   const c = schema.counters
   const [row] = await useDb().select().from(c).where(and(eq(c.organizationId, organizationId), eq(c.id, id)))
-  if (!row) throw createError({ statusCode: 404, statusMessage: 'No such counter in your organization.' })
+  if (!row) throw httpError(404, 'No such counter in your organization.')
   return row
 }
 
@@ -43,7 +43,7 @@ export async function listBenchRigs(organizationId: string, { includeRetired = f
 export async function findBenchRig(organizationId: string, id: string) {
   const r = schema.benchRigs
   const [row] = await useDb().select().from(r).where(and(eq(r.organizationId, organizationId), eq(r.id, id)))
-  if (!row) throw createError({ statusCode: 404, statusMessage: 'No such bench rig in your organization.' })
+  if (!row) throw httpError(404, 'No such bench rig in your organization.')
   return row
 }
 
@@ -51,7 +51,7 @@ export async function findBenchRig(organizationId: string, id: string) {
 export function duplicateSerial(error: unknown, what: string): never {
   const code = (error as { code?: string, cause?: { code?: string } })?.cause?.code ?? (error as { code?: string })?.code
   if (code === '23505') {
-    throw createError({ statusCode: 409, statusMessage: `Another ${what} already has this serial number.`, data: { fieldErrors: { serialNumber: `Another ${what} already has this serial number.` } } })
+    throw httpError(409, `Another ${what} already has this serial number.`, { fieldErrors: { serialNumber: `Another ${what} already has this serial number.` } })
   }
   throw error
 }
@@ -61,6 +61,6 @@ export async function assertPairableCounter(organizationId: string, counterId: s
   const c = schema.counters
   const [row] = await useDb().select({ active: c.active }).from(c).where(and(eq(c.organizationId, organizationId), eq(c.id, counterId)))
   if (!row || !row.active) {
-    throw createError({ statusCode: 400, statusMessage: 'Check the form: pair the rig with one of your active counters.', data: { fieldErrors: { counterId: 'Choose one of your active counters.' } } })
+    throw httpError(400, 'Check the form: pair the rig with one of your active counters.', { fieldErrors: { counterId: 'Choose one of your active counters.' } })
   }
 }

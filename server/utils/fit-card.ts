@@ -9,7 +9,7 @@ async function font(name: string): Promise<Buffer> {
   const kept = fonts.get(name)
   if (kept) return kept
   const raw = await useStorage('assets:fonts').getItemRaw(name)
-  if (!raw) throw createError({ statusCode: 500, statusMessage: 'The card font is missing from the server build.' })
+  if (!raw) throw httpError(500, 'The card font is missing from the server build.')
   const buffer = Buffer.from(raw as ArrayBuffer)
   fonts.set(name, buffer)
   return buffer

@@ -44,6 +44,6 @@ export async function assertMayRead(caller: Caller, row: FitTestRow) {
   if (caller.role !== 'wearer') return
   const [person] = await useDb().select({ userId: schema.people.userId }).from(schema.people).where(eq(schema.people.id, row.personId))
   if (person?.userId !== caller.id) {
-    throw createError({ statusCode: 404, statusMessage: 'No such fit test in your organization.' })
+    throw httpError(404, 'No such fit test in your organization.')
   }
 }

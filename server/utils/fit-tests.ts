@@ -14,14 +14,14 @@ type Organization = typeof schema.organizations.$inferSelect
 export async function findFitTest(organizationId: string, id: string): Promise<FitTestRow> {
   const t = schema.fitTests
   const [row] = await useDb().select().from(t).where(and(eq(t.organizationId, organizationId), eq(t.id, id)))
-  if (!row) throw createError({ statusCode: 404, statusMessage: 'No such fit test in your organization.' })
+  if (!row) throw httpError(404, 'No such fit test in your organization.')
   return row
 }
 
 export function passLevelFor(org: Organization, respiratorClass: string) {
   const resolved = resolvePassLevel({ ruleSet: org.ruleSet as PassLevelRuleSetKey, respiratorClass, overrides: org.settings.passLevelOverrides })
   if (!resolved.ok) {
-    throw createError({ statusCode: 409, statusMessage: resolved.issues[0]?.message ?? 'This respirator has no pass level.' })
+    throw httpError(409, resolved.issues[0]?.message ?? 'This respirator has no pass level.')
   }
   return resolved.value
 }
@@ -59,7 +59,7 @@ export async function resolveReferences(organizationId: string, input: { personI
   if (!site) fieldErrors.siteId = 'Choose one of your sites.'
   if (input.counterId && !counter) fieldErrors.counterId = 'Choose one of your counters.'
   if (Object.keys(fieldErrors).length) {
-    throw createError({ statusCode: 400, statusMessage: `Check the form: ${Object.values(fieldErrors)[0]}`, data: { fieldErrors } })
+    throw httpError(400, `Check the form: ${Object.values(fieldErrors)[0]}`, { fieldErrors })
   }
   return { person: person!, model: model!, site: site!, counter: counter ?? null }
 }
@@ -68,7 +68,7 @@ export function protocolFor(protocolKey: string, kind: 'quantitative' | 'qualita
   if (kind === 'qualitative') return null
   const protocol = findBuiltInProtocol(protocolKey)
   if (!protocol) {
-    throw createError({ statusCode: 400, statusMessage: 'Choose a quantitative protocol for a quantitative test.', data: { fieldErrors: { protocolKey: 'Choose a quantitative protocol.' } } })
+    throw httpError(400, 'Choose a quantitative protocol for a quantitative test.', { fieldErrors: { protocolKey: 'Choose a quantitative protocol.' } })
   }
   return protocol
 }
@@ -79,24 +79,24 @@ export type CreateFitTestInput = z.output<typeof createFitTestSchema>
 export function assertReadyToFinish(row: FitTestRow, evaluationOk: boolean, firstIssue?: string) {
   const unmet = unmetPreTestItems(row.preTest)
   if (unmet.length) {
-    throw createError({ statusCode: 409, statusMessage: `The test cannot be finished: ${unmet.map(k => PRE_TEST_ITEMS[k]).join('; ')} — not confirmed.`, data: { unmet } })
+    throw httpError(409, `The test cannot be finished: ${unmet.map(k => PRE_TEST_ITEMS[k]).join('; ')} — not confirmed.`, { unmet })
   }
   if (row.kind === 'qualitative' && !row.entry.qualitative) {
-    throw createError({ statusCode: 409, statusMessage: 'Record the agent and whether the wearer passed before finishing.' })
+    throw httpError(409, 'Record the agent and whether the wearer passed before finishing.')
   }
   if (row.kind === 'quantitative' && !evaluationOk) {
-    throw createError({ statusCode: 409, statusMessage: `The test cannot be finished yet: ${firstIssue ?? 'some results are missing'}.` })
+    throw httpError(409, `The test cannot be finished yet: ${firstIssue ?? 'some results are missing'}.`)
   }
 }
 
 export function assertDraft(row: FitTestRow) {
   if (row.status !== 'draft') {
-    throw createError({ statusCode: 409, statusMessage: 'This record is finished and locked. To correct it, start a revision with a reason.' })
+    throw httpError(409, 'This record is finished and locked. To correct it, start a revision with a reason.')
   }
 }
 
 export function staleDraftError(currentVersion?: number) {
-  return createError({ statusCode: 409, statusMessage: 'Someone else saved this draft after you opened it. Reload to see their changes; your typing is still on screen.', data: { currentVersion } })
+  return httpError(409, 'Someone else saved this draft after you opened it. Reload to see their changes; your typing is still on screen.', { currentVersion })
 }
 
 export function assertVersion(row: FitTestRow, version: number) {
@@ -105,7 +105,7 @@ export function assertVersion(row: FitTestRow, version: number) {
 
 export async function findSite(organizationId: string, siteId: string) {
   const [site] = await useDb().select().from(schema.sites).where(and(eq(schema.sites.organizationId, organizationId), eq(schema.sites.id, siteId)))
-  if (!site) throw createError({ statusCode: 404, statusMessage: 'No such site.' })
+  if (!site) throw httpError(404, 'No such site.')
   return site
 }
 

@@ -47,15 +47,15 @@ export async function listHeadformTests(organizationId: string, filter: { maskUn
 /** Everything a new headform test needs, checked: the unit, the rig, its counter and the pass level. */
 export async function planHeadformTest(organizationId: string, input: HeadformTestForm & { subChecks: Record<string, boolean> }) {
   const unit = await findMaskUnit(organizationId, input.maskUnitId)
-  if (unit.state === 'retired') throw createError({ statusCode: 409, statusMessage: 'This unit is retired; retired units are not tested.' })
+  if (unit.state === 'retired') throw httpError(409, 'This unit is retired; retired units are not tested.')
   const rig = await findBenchRig(organizationId, input.benchRigId)
-  if (!rig.active) throw createError({ statusCode: 409, statusMessage: 'This bench rig is retired; choose an active rig.' })
+  if (!rig.active) throw httpError(409, 'This bench rig is retired; choose an active rig.')
   const counter = await findCounter(organizationId, rig.counterId)
   const type = await findMaskType(organizationId, unit.maskTypeId)
   const missing = subChecksFor(type).filter(c => typeof input.subChecks[c.key] !== 'boolean')
   if (missing.length) {
     const fieldErrors = Object.fromEntries(missing.map(c => [`subChecks.${c.key}`, `Mark "${c.label}" pass or fail.`]))
-    throw createError({ statusCode: 400, statusMessage: `Check the form: mark "${missing[0]!.label}" pass or fail.`, data: { fieldErrors } })
+    throw httpError(400, `Check the form: mark "${missing[0]!.label}" pass or fail.`, { fieldErrors })
   }
   const applicable = Object.fromEntries(subChecksFor(type).map(c => [c.key, input.subChecks[c.key]!]))
   const level = headformPassLevel(type)
@@ -63,7 +63,7 @@ export async function planHeadformTest(organizationId: string, input: HeadformTe
   const result = computeStoredHeadform(raw, type)
   if (!result.ok) {
     const fieldErrors = Object.fromEntries(result.issues.filter(i => i.severity === 'error').map(i => [i.field ?? '_', i.message]))
-    throw createError({ statusCode: 400, statusMessage: `Check the form: ${result.issues[0]?.message}`, data: { fieldErrors } })
+    throw httpError(400, `Check the form: ${result.issues[0]?.message}`, { fieldErrors })
   }
   return { unit, rig, counter, type, level, raw, result, siteId: rig.siteId ?? unit.siteId ?? counter.siteId }
 }

@@ -10,7 +10,7 @@ export async function listMaskTypes(organizationId: string) {
 export async function findMaskType(organizationId: string, id: string) {
   const t = schema.maskTypes
   const [row] = await useDb().select().from(t).where(and(eq(t.organizationId, organizationId), eq(t.id, id)))
-  if (!row) throw createError({ statusCode: 404, statusMessage: 'No such mask type in your organization.' })
+  if (!row) throw httpError(404, 'No such mask type in your organization.')
   return row
 }
 
@@ -58,7 +58,7 @@ export async function listMaskUnits(organizationId: string, query: z.output<type
 export async function findMaskUnit(organizationId: string, id: string) {
   const u = schema.maskUnits
   const [row] = await unitQuery().where(and(eq(u.organizationId, organizationId), eq(u.id, id)))
-  if (!row) throw createError({ statusCode: 404, statusMessage: 'No such mask unit in your organization.' })
+  if (!row) throw httpError(404, 'No such mask unit in your organization.')
   return withDue(row)
 }
 
@@ -72,7 +72,7 @@ export async function listUnitEvents(organizationId: string, maskUnitId: string)
 
 /** Catalogue row and mask type sent by a form must both belong to the organization. */
 export async function assertUnitRefs(organizationId: string, input: { respiratorModelId?: string, maskTypeId?: string, siteId?: string | null }) {
-  const fieldError = (field: string, message: string) => createError({ statusCode: 400, statusMessage: `Check the form: ${message}`, data: { fieldErrors: { [field]: message } } })
+  const fieldError = (field: string, message: string) => httpError(400, `Check the form: ${message}`, { fieldErrors: { [field]: message } })
   if (input.respiratorModelId) {
     await findRespiratorModel(organizationId, input.respiratorModelId).catch(() => {
       throw fieldError('respiratorModelId', 'Choose a model from your catalogue.')

@@ -2,7 +2,7 @@ import { asc, eq } from 'drizzle-orm'
 
 export async function findOrganization(id: string) {
   const [org] = await useDb().select().from(schema.organizations).where(eq(schema.organizations.id, id))
-  if (!org) throw createError({ statusCode: 404, statusMessage: 'Organization not found.' })
+  if (!org) throw httpError(404, 'Organization not found.')
   return org
 }
 

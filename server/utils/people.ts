@@ -7,7 +7,7 @@ export type PersonRow = typeof schema.people.$inferSelect
 
 export async function findPerson(organizationId: string, id: string): Promise<PersonRow> {
   const [row] = await useDb().select().from(schema.people).where(and(eq(schema.people.organizationId, organizationId), eq(schema.people.id, id)))
-  if (!row) throw createError({ statusCode: 404, statusMessage: 'No such person in your roster.' })
+  if (!row) throw httpError(404, 'No such person in your roster.')
   return row
 }
 
@@ -50,10 +50,10 @@ export async function assertSiteOf(organizationId: string, siteId: string | null
   if (!siteId) return
   const sites = await listSites(organizationId)
   if (!sites.some(s => s.id === siteId)) {
-    throw createError({ statusCode: 400, statusMessage: 'Check the form: choose one of your sites.', data: { fieldErrors: { siteId: 'Choose one of your sites.' } } })
+    throw httpError(400, 'Check the form: choose one of your sites.', { fieldErrors: { siteId: 'Choose one of your sites.' } })
   }
 }
 
 export function duplicateEmployeeNumber(employeeNumber: string) {
-  return createError({ statusCode: 409, statusMessage: `Employee number ${employeeNumber} is already on the roster.`, data: { fieldErrors: { employeeNumber: 'Another person has this employee number.' } } })
+  return httpError(409, `Employee number ${employeeNumber} is already on the roster.`, { fieldErrors: { employeeNumber: 'Another person has this employee number.' } })
 }

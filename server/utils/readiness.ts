@@ -23,7 +23,7 @@ export async function listTemplates(organizationId: string) {
 export async function findTemplate(organizationId: string, id: string) {
   const t = schema.readinessTemplates
   const [row] = await useDb().select().from(t).where(and(eq(t.organizationId, organizationId), eq(t.id, id)))
-  if (!row) throw createError({ statusCode: 404, statusMessage: 'No such readiness template in your organization.' })
+  if (!row) throw httpError(404, 'No such readiness template in your organization.')
   return row
 }
 
@@ -42,21 +42,21 @@ export function nextStep(from: number, total: number, skipped: number[]): number
 /** Works out counter, rig, site and skipped steps for a new check; refuses mismatched choices. */
 export async function planCheck(organizationId: string, input: StartReadinessCheck) {
   const template = await findTemplate(organizationId, input.templateId)
-  if (!template.active) throw createError({ statusCode: 409, statusMessage: 'This template is retired; choose an active one.' })
-  const bad = (field: string, message: string) => createError({ statusCode: 400, statusMessage: `Check the form: ${message}`, data: { fieldErrors: { [field]: message } } })
+  if (!template.active) throw httpError(409, 'This template is retired; choose an active one.')
+  const bad = (field: string, message: string) => httpError(400, `Check the form: ${message}`, { fieldErrors: { [field]: message } })
   let rig = null
   let counterId = input.counterId
   if (template.scope === 'bench-rig') {
     if (!input.benchRigId) throw bad('benchRigId', 'Choose the bench rig this template checks.')
     rig = await findBenchRig(organizationId, input.benchRigId)
-    if (!rig.active) throw createError({ statusCode: 409, statusMessage: 'This bench rig is retired.' })
+    if (!rig.active) throw httpError(409, 'This bench rig is retired.')
     counterId = rig.counterId
   } else if (input.benchRigId) {
     throw bad('templateId', 'This template is for a counter on its own; choose a bench-rig template for a rig.')
   }
   if (!counterId) throw bad('counterId', 'Choose the counter to check.')
   const counter = await findCounter(organizationId, counterId)
-  if (!counter.active) throw createError({ statusCode: 409, statusMessage: 'This counter is retired.' })
+  if (!counter.active) throw httpError(409, 'This counter is retired.')
   const maskType = input.maskTypeId && rig ? await findMaskType(organizationId, input.maskTypeId) : null
   return {
     template, counter, rig, maskType,
@@ -100,7 +100,7 @@ export async function listChecks(organizationId: string, query: z.output<typeof 
 export async function findCheck(organizationId: string, id: string) {
   const c = schema.readinessChecks
   const [row] = await checkQuery().where(and(eq(c.organizationId, organizationId), eq(c.id, id)))
-  if (!row) throw createError({ statusCode: 404, statusMessage: 'No such readiness check in your organization.' })
+  if (!row) throw httpError(404, 'No such readiness check in your organization.')
   return row
 }
 
@@ -108,9 +108,9 @@ export async function findCheck(organizationId: string, id: string) {
 export async function lockOpenCheck(tx: Tx, organizationId: string, id: string) {
   const c = schema.readinessChecks
   const [row] = await tx.select().from(c).where(and(eq(c.organizationId, organizationId), eq(c.id, id))).for('update')
-  if (!row) throw createError({ statusCode: 404, statusMessage: 'No such readiness check in your organization.' })
+  if (!row) throw httpError(404, 'No such readiness check in your organization.')
   if (row.status !== 'in-progress') {
-    throw createError({ statusCode: 409, statusMessage: `This readiness check has ended (${row.status}) and can no longer be changed. Start a new check instead.` })
+    throw httpError(409, `This readiness check has ended (${row.status}) and can no longer be changed. Start a new check instead.`)
   }
   return row
 }
@@ -120,13 +120,13 @@ type OpenCheck = Awaited<ReturnType<typeof lockOpenCheck>>
 /** One attempt at the current step: the verdict at once, the check moves on when it passes. */
 export function applyStep(check: OpenCheck, input: RecordStep, userId: string, now = new Date()) {
   if (input.stepIndex !== check.currentStep) {
-    throw createError({ statusCode: 409, statusMessage: `This check is at step ${check.currentStep + 1}, not step ${input.stepIndex + 1}. Reload the page to see where it is.` })
+    throw httpError(409, `This check is at step ${check.currentStep + 1}, not step ${input.stepIndex + 1}. Reload the page to see where it is.`)
   }
   const step = check.steps[check.currentStep]!
   const verdict = evaluateAcceptanceRule(step.rule, input.value, step.name)
   if (!verdict.ok) {
     const message = verdict.issues[0]?.message ?? 'Enter the value for this step.'
-    throw createError({ statusCode: 400, statusMessage: `Check the form: ${message}`, data: { fieldErrors: { value: message } } })
+    throw httpError(400, `Check the form: ${message}`, { fieldErrors: { value: message } })
   }
   const entry: StepEntry = { stepIndex: input.stepIndex, value: input.value, passed: verdict.value.passed, message: verdict.value.message, recordedAt: now.toISOString(), recordedBy: userId, ...(input.note ? { note: input.note } : {}) }
   const currentStep = verdict.value.passed ? nextStep(check.currentStep + 1, check.steps.length, check.skippedSteps) : check.currentStep

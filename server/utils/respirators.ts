@@ -11,6 +11,6 @@ export async function listRespiratorModels(organizationId: string, { includeReti
 export async function findRespiratorModel(organizationId: string, id: string) {
   const r = schema.respiratorModels
   const [row] = await useDb().select().from(r).where(and(eq(r.organizationId, organizationId), eq(r.id, id)))
-  if (!row) throw createError({ statusCode: 404, statusMessage: 'No such respirator model in your catalogue.' })
+  if (!row) throw httpError(404, 'No such respirator model in your catalogue.')
   return row
 }

@@ -27,11 +27,7 @@ export async function assertNotThrottled(event: H3Event, keys: ThrottleKeys) {
     const seconds = Math.ceil((lockedUntil - now) / 1000)
     const minutes = Math.ceil(seconds / 60)
     setResponseHeader(event, 'Retry-After', seconds)
-    throw createError({
-      statusCode: 429,
-      statusMessage: `Too many failed sign-ins. Try again in ${minutes} minute${minutes === 1 ? '' : 's'}.`,
-      data: { retryAfterSeconds: seconds }
-    })
+    throw httpError(429, `Too many failed sign-ins. Try again in ${minutes} minute${minutes === 1 ? '' : 's'}.`, { retryAfterSeconds: seconds })
   }
 }
 

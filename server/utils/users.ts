@@ -39,7 +39,7 @@ export async function findUser(organizationId: string, id: string) {
   const [row] = await useDb().select(publicUserColumns).from(schema.users)
     .where(and(eq(schema.users.organizationId, organizationId), eq(schema.users.id, id)))
   if (!row) {
-    throw createError({ statusCode: 404, statusMessage: 'No such user in your organization.' })
+    throw httpError(404, 'No such user in your organization.')
   }
   return toPublic(row)
 }

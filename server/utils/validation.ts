@@ -16,11 +16,7 @@ export function fieldErrorsOf(error: z.ZodError): FieldErrors {
 function invalid(error: z.ZodError, what: string): never {
   const fieldErrors = fieldErrorsOf(error)
   const first = Object.values(fieldErrors)[0] ?? 'is not valid'
-  throw createError({
-    statusCode: 400,
-    statusMessage: `Check the ${what}: ${first}`,
-    data: { fieldErrors }
-  })
+  throw httpError(400, `Check the ${what}: ${first}`, { fieldErrors })
 }
 
 export async function parseBody<S extends z.ZodType>(event: H3Event, schema: S): Promise<z.output<S>> {
@@ -28,7 +24,7 @@ export async function parseBody<S extends z.ZodType>(event: H3Event, schema: S):
   try {
     body = await readBody(event)
   } catch {
-    throw createError({ statusCode: 400, statusMessage: 'The request body is not valid JSON.' })
+    throw httpError(400, 'The request body is not valid JSON.')
   }
   const result = schema.safeParse(body ?? {})
   return result.success ? result.data : invalid(result.error, 'form')
@@ -43,7 +39,7 @@ export function parseParams<S extends z.ZodType>(event: H3Event, schema: S): z.o
   const result = schema.safeParse(getRouterParams(event, { decode: true }))
   // A malformed id names nothing that exists: the same answer as a missing record.
   if (!result.success) {
-    throw createError({ statusCode: 404, statusMessage: 'Not found.' })
+    throw httpError(404, 'Not found.')
   }
   return result.data
 }

@@ -31,8 +31,8 @@ describe('sign-in', () => {
     const unknownEmail = await new Client().post('/api/auth/sign-in', { email: 'nobody@fixture.example', password: 'whatever-it-is' })
     expect(wrongPassword.status).toBe(401)
     expect(unknownEmail.status).toBe(401)
-    expect(wrongPassword.body.statusMessage).toBe(unknownEmail.body.statusMessage)
-    expect(wrongPassword.body.statusMessage).not.toMatch(/password is wrong|no such/i)
+    expect(wrongPassword.body.message).toBe(unknownEmail.body.message)
+    expect(wrongPassword.body.message).not.toMatch(/password is wrong|no such/i)
   })
 
   it('names each missing field', async () => {
@@ -63,7 +63,7 @@ describe('throttling', () => {
     const locked = await new Client().post('/api/auth/sign-in', { email: victim.email, password: victim.password })
     expect(locked.status).toBe(429)
     expect(Number(locked.headers.get('retry-after'))).toBeGreaterThan(0)
-    expect(locked.body.statusMessage).toMatch(/try again in \d+ minute/i)
+    expect(locked.body.message).toMatch(/try again in \d+ minute/i)
   })
 
   it('locks a client address that tries many e-mails', async () => {
@@ -89,7 +89,7 @@ describe('deactivated users', () => {
 
     const after = await wearer.get('/api/overview')
     expect(after.status).toBe(401)
-    expect(after.body.statusMessage).toMatch(/no longer active/i)
+    expect(after.body.message).toMatch(/no longer active/i)
     const again = await new Client().post('/api/auth/sign-in', { email: local.users.wearer.email, password: local.users.wearer.password })
     expect(again.status).toBe(401)
   })

@@ -85,7 +85,7 @@ describe('the app while PostgreSQL is down', () => {
     expect((await health.json()).database).toBe('down')
     const signIn = await fetch(`${base}/api/auth/sign-in`, { method: 'POST', headers: { 'content-type': 'application/json' }, body: JSON.stringify({ email: 'someone@fixture.example', password: 'anything-at-all' }) })
     expect(signIn.status).toBe(503)
-    expect((await signIn.json()).statusMessage).toMatch(/database is not answering/i)
+    expect((await signIn.json()).message).toMatch(/database is not answering/i)
 
     await ensureCluster({ dataDir, port })
     const recovered = await waitFor(async () => (await fetch(`${base}/api/health`)).status === 200, { timeoutMs: 15_000 })

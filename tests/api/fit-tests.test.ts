@@ -108,7 +108,7 @@ describe('saving a draft', () => {
     expect((await colleague.patch(`/api/fit-tests/${created.body.id}`, { version: 1, respiratorSize: 'L' })).status).toBe(200)
     const stale = await tester.patch(`/api/fit-tests/${created.body.id}`, { version: 1, respiratorSize: 'S' })
     expect(stale.status).toBe(409)
-    expect(stale.body.statusMessage).toMatch(/someone else saved/i)
+    expect(stale.body.message).toMatch(/someone else saved/i)
     expect((await tester.get(`/api/fit-tests/${created.body.id}`)).body.respiratorSize).toBe('L')
   })
 
@@ -127,14 +127,14 @@ describe('finishing', () => {
     const created = await tester.post('/api/fit-tests', newTest({ entry: standardEntry([500, 500, 500, 500, 500, 500, 500]), preTest: { ...allPreTestMet, nothingCrossingSeal: false } }))
     const reply = await tester.post(`/api/fit-tests/${created.body.id}/finish`, { version: 1 })
     expect(reply.status).toBe(409)
-    expect(reply.body.statusMessage).toMatch(/sealing surface/)
+    expect(reply.body.message).toMatch(/sealing surface/)
   })
 
   it('refuses while readings are missing', async () => {
     const created = await tester.post('/api/fit-tests', newTest())
     const reply = await tester.post(`/api/fit-tests/${created.body.id}/finish`, { version: 1 })
     expect(reply.status).toBe(409)
-    expect(reply.body.statusMessage).toMatch(/cannot be finished yet/)
+    expect(reply.body.message).toMatch(/cannot be finished yet/)
   })
 
   it('passes at exactly the pass level, sets the due date a year on, and locks the record', async () => {
@@ -144,7 +144,7 @@ describe('finishing', () => {
     expect(done.cardToken).toMatch(/^[\w-]{30,}$/)
     const edit = await tester.patch(`/api/fit-tests/${done.id}`, { version: done.version, respiratorSize: 'L' })
     expect(edit.status).toBe(409)
-    expect(edit.body.statusMessage).toMatch(/finished and locked/)
+    expect(edit.body.message).toMatch(/finished and locked/)
   })
 
   it('uses the full facepiece pass level of the rule set', async () => {
@@ -239,7 +239,7 @@ describe('qualitative tests', () => {
     const created = await tester.post('/api/fit-tests', newTest({ kind: 'qualitative', protocolKey: 'qualitative-app-a', counterId: null }))
     const reply = await tester.post(`/api/fit-tests/${created.body.id}/finish`, { version: 1 })
     expect(reply.status).toBe(409)
-    expect(reply.body.statusMessage).toMatch(/agent and whether/)
+    expect(reply.body.message).toMatch(/agent and whether/)
   })
 })
 
@@ -257,7 +257,7 @@ describe('coverage by the counter\'s readiness check', () => {
     expect(created.body.coverage).toMatchObject({ covered: false, reason: 'no-check-that-day' })
     const refused = await localTester.post(`/api/fit-tests/${created.body.id}/finish`, { version: 1 })
     expect(refused.status).toBe(409)
-    expect(refused.body.statusMessage).toMatch(/refuses results no readiness check covers/)
+    expect(refused.body.message).toMatch(/refuses results no readiness check covers/)
 
     // A passing check of the same counter at 08:00 New York time the same day (fixture site zone).
     await testDb().insert(schema.readinessChecks).values({

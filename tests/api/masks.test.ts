@@ -144,7 +144,7 @@ describe('headform tests', () => {
     await testDb().update(schema.counters).set({ calibrationDueOn: '2000-01-01' }).where(counters)
     const reply = await tester.post('/api/headform-tests', { maskUnitId: unit.id, benchRigId: rigId, outside: 24000, inside: 4, sampleSeconds: 60, subChecks: cbrnSubChecks })
     expect(reply.status).toBe(409)
-    expect(reply.body.statusMessage).toMatch(/Not saved: .*calibration/)
+    expect(reply.body.message).toMatch(/Not saved: .*calibration/)
     await testDb().update(schema.counters).set({ calibrationDueOn: '2099-01-01' }).where(counters)
     await admin.patch('/api/settings', { uncoveredResults: 'flag' })
   })

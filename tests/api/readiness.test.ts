@@ -154,7 +154,7 @@ describe('the readiness-check runner', () => {
 
     const late = await tester.post(`/api/readiness-checks/${check.id}/steps`, { stepIndex: 0, value: true })
     expect(late.status).toBe(409)
-    expect(late.body.statusMessage).toMatch(/has ended .* can no longer be changed/)
+    expect(late.body.message).toMatch(/has ended .* can no longer be changed/)
     expect((await tester.post(`/api/readiness-checks/${check.id}/abandon`, { reason: 'too late' })).status).toBe(409)
   })
 

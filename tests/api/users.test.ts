@@ -23,7 +23,7 @@ describe('the users list', () => {
     expect(roles[0]).toBe('wearer')
     const bad = await admin.get('/api/users?sort=password')
     expect(bad.status).toBe(400)
-    expect(bad.body.statusMessage).toMatch(/sort by one of/i)
+    expect(bad.body.message).toMatch(/sort by one of/i)
   })
 })
 
@@ -100,7 +100,7 @@ describe('changing users', () => {
   it('never lets an admin deactivate or demote themselves', async () => {
     const deactivate = await admin.patch(`/api/users/${org.users.admin.id}`, { active: false })
     expect(deactivate.status).toBe(409)
-    expect(deactivate.body.statusMessage).toMatch(/your own/i)
+    expect(deactivate.body.message).toMatch(/your own/i)
     expect((await admin.patch(`/api/users/${org.users.admin.id}`, { role: 'tester' })).status).toBe(409)
   })
 

@@ -13,7 +13,7 @@ export default defineEventHandler(async (event) => {
   const valid = user?.passwordHash ? await verifyPassword(user.passwordHash, password) : false
   if (!user || !valid || !user.active) {
     await recordSignInFailure(keys)
-    throw createError({ statusCode: 401, statusMessage: GENERIC_FAILURE })
+    throw httpError(401, GENERIC_FAILURE)
   }
 
   await clearSignInFailures(email)

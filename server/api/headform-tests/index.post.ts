@@ -9,7 +9,7 @@ export default defineEventHandler(async (event) => {
   const coverage = await findCoverage(caller.organizationId, { counterId: plan.counter.id, benchRigId: plan.rig.id, siteId: plan.siteId, performedAt })
   const organization = await findOrganization(caller.organizationId)
   if (!coverage.covered && organization.settings.uncoveredResults === 'refuse') {
-    throw createError({ statusCode: 409, statusMessage: `Not saved: ${coverage.message} Your program refuses results no readiness check covers.`, data: { coverage } })
+    throw httpError(409, `Not saved: ${coverage.message} Your program refuses results no readiness check covers.`, { coverage })
   }
   const id = await useDb().transaction(async (tx) => {
     const [row] = await tx.insert(schema.headformTests).values({

@@ -8,7 +8,7 @@ export default defineEventHandler(async (event) => {
     await writeAudit(tx, caller, { entityType: 'mask-type', entityId: row!.id, action: 'created', after: input })
     return row!
   }).catch((error) => {
-    if (error?.cause?.code === '23505') throw createError({ statusCode: 409, statusMessage: 'A mask type with this name already exists.', data: { fieldErrors: { name: 'A mask type with this name already exists.' } } })
+    if (error?.cause?.code === '23505') throw httpError(409, 'A mask type with this name already exists.', { fieldErrors: { name: 'A mask type with this name already exists.' } })
     throw error
   })
   setResponseStatus(event, 201)

@@ -13,13 +13,13 @@ export default defineEventHandler(async (event) => {
   const caller = await requireRole(event, 'admin')
   const url = useRuntimeConfig(event).mail.outboxUrl
   if (!url) {
-    throw createError({ statusCode: 404, statusMessage: 'There is no outbox here: mail goes to a real SMTP server.' })
+    throw httpError(404, 'There is no outbox here: mail goes to a real SMTP server.')
   }
   let messages: CapturedMail[]
   try {
     messages = await $fetch<CapturedMail[]>(`${url.replace(/\/$/, '')}/messages`, { timeout: 3000 })
   } catch {
-    throw createError({ statusCode: 503, statusMessage: 'The local mail catcher does not answer. Is `npm start` still running?' })
+    throw httpError(503, 'The local mail catcher does not answer. Is `npm start` still running?')
   }
   return messages
     .filter(m => m.headers['x-sealwright-organization'] === caller.organizationId)

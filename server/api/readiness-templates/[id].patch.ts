@@ -11,7 +11,7 @@ export default defineEventHandler(async (event) => {
   const merged = readinessTemplateSchema.safeParse({ name: changes.name ?? before.name, scope: before.scope, steps: changes.steps ?? before.steps })
   if (!merged.success) {
     const fieldErrors = fieldErrorsOf(merged.error)
-    throw createError({ statusCode: 400, statusMessage: `Check the form: ${Object.values(fieldErrors)[0]}`, data: { fieldErrors } })
+    throw httpError(400, `Check the form: ${Object.values(fieldErrors)[0]}`, { fieldErrors })
   }
   return useDb().transaction(async (tx) => {
     const [row] = await tx.update(schema.readinessTemplates).set({ ...changes, isDefault: changes.steps ? false : before.isDefault })

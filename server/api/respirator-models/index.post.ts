@@ -5,7 +5,7 @@ export default defineEventHandler(async (event) => {
   const input = await parseBody(event, respiratorModelSchema)
   const created = await useDb().transaction(async (tx) => {
     const [row] = await tx.insert(schema.respiratorModels).values({ ...input, organizationId: caller.organizationId }).onConflictDoNothing().returning()
-    if (!row) throw createError({ statusCode: 409, statusMessage: `${input.make} ${input.model} is already in the catalogue.`, data: { fieldErrors: { model: 'Already in the catalogue.' } } })
+    if (!row) throw httpError(409, `${input.make} ${input.model} is already in the catalogue.`, { fieldErrors: { model: 'Already in the catalogue.' } })
     await writeAudit(tx, caller, { entityType: 'respirator-model', entityId: row.id, action: 'created', after: input })
     return row
   })

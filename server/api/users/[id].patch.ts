@@ -9,10 +9,10 @@ export default defineEventHandler(async (event) => {
 
   const losesAdmin = before.role === 'admin' && before.active && ((changes.role && changes.role !== 'admin') || changes.active === false)
   if (losesAdmin && id === caller.id) {
-    throw createError({ statusCode: 409, statusMessage: 'You cannot remove your own administrator access. Ask another administrator.' })
+    throw httpError(409, 'You cannot remove your own administrator access. Ask another administrator.')
   }
   if (losesAdmin && await countOtherActiveAdmins(caller.organizationId, id) === 0) {
-    throw createError({ statusCode: 409, statusMessage: 'This is the last active administrator. Make someone else an administrator first.' })
+    throw httpError(409, 'This is the last active administrator. Make someone else an administrator first.')
   }
 
   await useDb().transaction(async (tx) => {

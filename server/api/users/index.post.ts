@@ -4,7 +4,7 @@ export default defineEventHandler(async (event) => {
   const caller = await requireRole(event, 'admin')
   const input = await parseBody(event, createUserSchema)
   if (await findUserByEmail(input.email)) {
-    throw createError({ statusCode: 409, statusMessage: `An account for ${input.email} already exists.`, data: { fieldErrors: { email: 'This e-mail already has an account.' } } })
+    throw httpError(409, `An account for ${input.email} already exists.`, { fieldErrors: { email: 'This e-mail already has an account.' } })
   }
   const user = await useDb().transaction(async (tx) => {
     const [created] = await tx.insert(schema.users).values({ ...input, organizationId: caller.organizationId }).returning()

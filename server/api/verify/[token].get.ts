@@ -13,7 +13,7 @@ export default defineEventHandler(async (event) => {
   const { token } = parseParams(event, paramsSchema)
   const [card] = await useDb().select().from(schema.fitCards).where(eq(schema.fitCards.token, token))
   const current = card ? await currentRevision(card.organizationId, card.recordId) : null
-  if (!card || !current) throw createError({ statusCode: 404, statusMessage: 'This card is not known. It may have been copied wrongly.' })
+  if (!card || !current) throw httpError(404, 'This card is not known. It may have been copied wrongly.')
   const [person] = await useDb().select({ fullName: schema.people.fullName }).from(schema.people).where(eq(schema.people.id, current.personId))
   const site = await findSite(card.organizationId, current.siteId)
   const today = localDate(new Date(), site.timeZone)

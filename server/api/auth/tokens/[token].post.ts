@@ -6,7 +6,7 @@ export default defineEventHandler(async (event) => {
   const { password } = await parseBody(event, setPasswordSchema)
   const row = await findLiveToken(token)
   if (!row || !row.user.active) {
-    throw createError({ statusCode: 404, statusMessage: 'This link has expired or was already used. Ask for a new one.' })
+    throw httpError(404, 'This link has expired or was already used. Ask for a new one.')
   }
   const passwordHash = await hashPassword(password)
   const user = row.user

@@ -6,7 +6,7 @@ export default defineEventHandler(async (event) => {
   const row = await findFitTest(caller.organizationId, id)
   await assertMayRead(caller, row)
   if (row.status !== 'finished' || !row.passed) {
-    throw createError({ statusCode: 409, statusMessage: row.status === 'finished' ? 'There is no fit card for a test that did not pass.' : 'A fit card is issued once a passing test is finished.' })
+    throw httpError(409, row.status === 'finished' ? 'There is no fit card for a test that did not pass.' : 'A fit card is issued once a passing test is finished.')
   }
   const view = await fitTestView(caller, row)
   const pdf = await renderFitCard(view)

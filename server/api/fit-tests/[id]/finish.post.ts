@@ -17,7 +17,7 @@ export default defineEventHandler(async (event) => {
   if (row.counterId && org.settings.uncoveredResults === 'refuse') {
     const coverage = await findCoverage(caller.organizationId, { counterId: row.counterId, siteId: row.siteId, performedAt: row.performedAt })
     if (!coverage.covered) {
-      throw createError({ statusCode: 409, statusMessage: `Your program refuses results no readiness check covers: ${coverage.message}`, data: { coverage } })
+      throw httpError(409, `Your program refuses results no readiness check covers: ${coverage.message}`, { coverage })
     }
   }
 

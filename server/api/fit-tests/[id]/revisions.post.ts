@@ -9,12 +9,12 @@ export default defineEventHandler(async (event) => {
   const { reason } = await parseBody(event, reasonSchema)
   const row = await findFitTest(caller.organizationId, id)
   if (row.status !== 'finished') {
-    throw createError({ statusCode: 409, statusMessage: row.status === 'draft' ? 'This is still a draft: edit it directly.' : 'Only the current finished revision can be corrected.' })
+    throw httpError(409, row.status === 'draft' ? 'This is still a draft: edit it directly.' : 'Only the current finished revision can be corrected.')
   }
   const t = schema.fitTests
   const [openDraft] = await useDb().select({ id: t.id }).from(t).where(and(eq(t.recordId, row.recordId), eq(t.status, 'draft')))
   if (openDraft) {
-    throw createError({ statusCode: 409, statusMessage: 'A correction of this record is already in progress.', data: { draftId: openDraft.id } })
+    throw httpError(409, 'A correction of this record is already in progress.', { draftId: openDraft.id })
   }
   const revisions = await listRevisions(caller.organizationId, row.recordId)
   const { id: _id, createdAt: _c, updatedAt: _u, finishedAt: _f, finishedByUserId: _fb, idempotencyKey: _k, ...copy } = row

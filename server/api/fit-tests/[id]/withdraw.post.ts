@@ -9,7 +9,7 @@ export default defineEventHandler(async (event) => {
   const { reason } = await parseBody(event, reasonSchema)
   const row = await findFitTest(caller.organizationId, id)
   if (row.status !== 'finished') {
-    throw createError({ statusCode: 409, statusMessage: 'Only a finished, current record can be withdrawn.' })
+    throw httpError(409, 'Only a finished, current record can be withdrawn.')
   }
   const t = schema.fitTests
   await useDb().transaction(async (tx) => {

@@ -8,10 +8,10 @@ export default defineEventHandler(async (event) => {
   const { state, reason } = await parseBody(event, changeMaskStateSchema)
   const unit = await findMaskUnit(caller.organizationId, id)
   if (unit.state === 'retired') {
-    throw createError({ statusCode: 409, statusMessage: 'This unit is retired; a retired unit does not come back into use.' })
+    throw httpError(409, 'This unit is retired; a retired unit does not come back into use.')
   }
   if (unit.state === state) {
-    throw createError({ statusCode: 409, statusMessage: `This unit is already ${MASK_UNIT_STATE_LABELS[state].toLowerCase()}.` })
+    throw httpError(409, `This unit is already ${MASK_UNIT_STATE_LABELS[state].toLowerCase()}.`)
   }
   await useDb().transaction(tx => changeUnitState(tx, caller, unit, state, reason))
   return findMaskUnit(caller.organizationId, id)

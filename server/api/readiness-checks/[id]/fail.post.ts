@@ -9,7 +9,7 @@ export default defineEventHandler(async (event) => {
     const check = await lockOpenCheck(tx, caller.organizationId, id)
     const last = check.entries.findLast(e => e.stepIndex === check.currentStep)
     if (!last || last.passed) {
-      throw createError({ statusCode: 409, statusMessage: 'A check ends as failed only after a step has failed. Record the current step, or abandon the check with a reason.' })
+      throw httpError(409, 'A check ends as failed only after a step has failed. Record the current step, or abandon the check with a reason.')
     }
     await tx.update(schema.readinessChecks).set({ status: 'failed', completedAt: new Date() }).where(eq(schema.readinessChecks.id, id))
     await writeAudit(tx, caller, { entityType: 'readiness-check', entityId: id, action: 'failed', after: { failedStep: check.currentStep } })

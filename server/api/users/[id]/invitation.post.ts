@@ -5,7 +5,7 @@ export default defineEventHandler(async (event) => {
   const { id } = parseParams(event, idParamSchema)
   const user = await findUser(caller.organizationId, id)
   if (!user.active) {
-    throw createError({ statusCode: 409, statusMessage: 'This account is deactivated. Reactivate it before sending an invitation.' })
+    throw httpError(409, 'This account is deactivated. Reactivate it before sending an invitation.')
   }
   const org = await findOrganization(caller.organizationId)
   await sendInvitation({ ...user, organizationId: caller.organizationId }, org.name)
