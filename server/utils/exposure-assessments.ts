@@ -11,9 +11,8 @@ import type { FitRecordSummary, PersonProtection } from '#shared/utils/exposure-
 export type AssessmentRow = typeof schema.exposureAssessments.$inferSelect
 export type SaveAssessment = z.output<typeof saveAssessmentSchema>
 
-// The sentence a user reads goes in `message` (h3 strips non-ASCII from statusMessage).
 export function assessmentError(statusCode: number, message: string, fieldErrors?: Record<string, string>) {
-  return createError({ statusCode, message, data: fieldErrors ? { fieldErrors } : undefined })
+  return httpError(statusCode, message, fieldErrors ? { fieldErrors } : undefined)
 }
 
 export async function ruleSetOf(organizationId: string): Promise<PassLevelRuleSetKey> {

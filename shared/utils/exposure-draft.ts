@@ -57,7 +57,7 @@ export function readCalculatorDraft(draft: CalculatorDraft): ReadDraft {
       readErrors[field] = r.message
       return null
     }
-    if (r.value !== null && r.asRead !== text.trim()) asRead[field] = r.asRead
+    if (r.value !== null && r.differs) asRead[field] = r.asRead
     return r.value
   }
   const contaminants = draft.contaminants.map((s, i) => {

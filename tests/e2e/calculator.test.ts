@@ -36,7 +36,7 @@ describe('a hygienist goes from measured exposure to the people not protected fo
     // 81.25 / 100, shown to three figures rounded up.
     await expect.poll(() => page.getByTestId('hazard-ratio').textContent()).toBe('0.813')
     await page.locator('#calc-0-limit').fill('1,5')
-    await expect.poll(() => page.getByText('"1,5" is ambiguous').isVisible()).toBe(true)
+    await expect.poll(() => page.getByText("'1,5' is ambiguous").isVisible()).toBe(true)
     await screenshot(page, 'calculator-bad-input')
   })
 

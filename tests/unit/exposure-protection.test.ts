@@ -77,7 +77,7 @@ describe('the calculator form as typed', () => {
     const substance = { ...emptySubstance(), name: 'Solvent A', exposure: '12,500', limit: '1,5', idlh: '' }
     const read = readCalculatorDraft({ contaminants: [substance], additiveMixture: true, oxygenDeficient: false })
     expect(read.readErrors['contaminants.0.limit.value']).toContain('ambiguous')
-    expect(read.asRead['contaminants.0.exposure.value']).toBe('12500')
+    expect(read.asRead['contaminants.0.exposure.value']).toBe('12 500')
     const c = read.input.contaminants[0]!
     expect(c.exposure).toEqual({ mode: 'single', value: 12500, unit: 'ppm' })
     expect(c.idlh).toBeNull()
