@@ -36,7 +36,7 @@ describe('a hygienist goes from measured exposure to the people not protected fo
     // 81.25 / 100, shown to three figures rounded up.
     await expect.poll(() => page.getByTestId('hazard-ratio').textContent()).toBe('0.813')
     await page.locator('#calc-0-limit').fill('1,5')
-    await expect.poll(() => page.getByText("'1,5' is ambiguous").isVisible()).toBe(true)
+    await expect.poll(() => page.getByText('\'1,5\' is ambiguous').isVisible()).toBe(true)
     await screenshot(page, 'calculator-bad-input')
   })
 
@@ -56,6 +56,7 @@ describe('a hygienist goes from measured exposure to the people not protected fo
     // Derived from 29 CFR 1910.1000(d)(2)(i): 5000/1000 + 1350/200 = 11.75.
     await expect.poll(() => page.getByTestId('hazard-ratio').textContent()).toBe('11.8')
     await expect.poll(() => page.getByTestId('calculator-cautions').textContent()).toContain('Never use MUC for IDLH atmospheres')
+    await page.getByLabel('Show classes that are not adequate too').check()
     await expect(page.getByLabel('Choose Elastomeric half mask').isDisabled()).resolves.toBe(true)
     await page.getByLabel('Choose Elastomeric full facepiece (air-purifying)').check()
     await page.getByLabel('Job or work area').fill('Chemical store decanting (e2e)')
