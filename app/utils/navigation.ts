@@ -15,6 +15,7 @@ export const NAV_ITEMS: NavItem[] = [
   { to: '/fit-tests', label: 'My fit tests', roles: ['wearer'] },
   { to: '/insights', label: 'Insights', roles: ['reviewer', 'tester'] },
   { to: '/reviews', label: 'Review queue', roles: ['reviewer'] },
+  { to: '/calculator', label: 'Protection calculator', roles: ['tester', 'reviewer', 'trainer'] },
   { to: '/equipment/checks', label: 'Readiness checks', roles: ['tester', 'reviewer', 'trainer'] },
   { to: '/equipment/headform', label: 'Headform test', roles: ['tester'] },
   { to: '/equipment/masks', label: 'Mask units', roles: ['tester', 'reviewer', 'trainer'] },

@@ -2,6 +2,7 @@
 import { DEMO_ORGANIZATIONS, DEMO_PASSWORD, demoEmail } from './demo-accounts.mjs'
 import type { SeedDb } from './db'
 import { schema } from './db'
+import { seedAssessments } from './assessments'
 import { seedFitTests } from './fit-tests'
 import { hashPassword } from './hash'
 import { seedEquipment } from './equipment'
@@ -41,5 +42,7 @@ export async function seedDemo(db: SeedDb, onProgress: (text: string) => void = 
   await seedEquipment(db, seeded)
   await seedFitTests(db, seeded, onProgress)
   await seedInsights(db, seeded, onProgress)
+  onProgress('Exposure assessments')
+  await seedAssessments(db, seeded)
   return seeded
 }

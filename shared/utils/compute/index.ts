@@ -20,3 +20,6 @@ export * from './selection'
 export * from './summaries'
 export * from './insight-stats'
 export * from './movements'
+export * from './selection-classes'
+// The exposure arithmetic (exposure.ts, exposure-assessment.ts) carries mathjs: import it from
+// '#shared/utils/compute/exposure-assessment' on the pages that need it.
