@@ -74,6 +74,7 @@ export function subChecksFor(type: { hasDrinkTube: boolean, hasExhalationValve: 
 
 const concentration = (what: string) => z.number({ error: `Enter the ${what} concentration in particles/cm³.` })
   .min(0, { error: `The ${what} concentration cannot be negative.` })
+  .max(1e9, { error: `That ${what} concentration is beyond any counter's range; check the decimal point.` })
 
 export const headformTestSchema = z.object({
   maskUnitId: z.uuid({ error: 'Choose the mask unit.' }),
@@ -81,7 +82,8 @@ export const headformTestSchema = z.object({
   outside: concentration('outside').positive({ error: 'The outside concentration must be above 0; is the aerosol generator running?' }),
   inside: concentration('inside'),
   sampleSeconds: z.number({ error: 'Enter the bench sample in seconds.' }).positive({ error: 'The bench sample must last more than 0 seconds.' }).max(3600, { error: 'Use at most 3,600 seconds.' }),
-  subChecks: z.record(z.string(), z.boolean({ error: 'Mark each sub-check pass or fail.' })).default({}),
+  subChecks: z.record(z.string().max(60), z.boolean({ error: 'Mark each sub-check pass or fail.' }))
+    .refine(r => Object.keys(r).length <= 20, { error: 'A mask has at most 20 sub-checks.' }).default({}),
   notes: z.string().trim().max(600, { error: 'Use at most 600 characters.' }).default('')
 })
 export type HeadformTestForm = z.input<typeof headformTestSchema>
