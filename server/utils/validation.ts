@@ -36,6 +36,10 @@ function refuseUnstorable(input: unknown, what: string) {
   throw httpError(400, `Check the ${what}: ${field} — ${message}`, { fieldErrors: { [found.path]: message } })
 }
 
+function isEmptyChange(data: unknown): boolean {
+  return data !== null && typeof data === 'object' && !Array.isArray(data) && Object.values(data).every(v => v === undefined)
+}
+
 export async function parseBody<S extends z.ZodType>(event: H3Event, schema: S): Promise<z.output<S>> {
   let body: unknown
   try {
@@ -45,7 +49,13 @@ export async function parseBody<S extends z.ZodType>(event: H3Event, schema: S):
   }
   refuseUnstorable(body, 'form')
   const result = schema.safeParse(body ?? {})
-  return result.success ? result.data : invalid(result.error, 'form')
+  if (!result.success) return invalid(result.error, 'form')
+  // A change that names nothing to change is refused here, for every PATCH route, rather than
+  // reaching an UPDATE with no columns.
+  if (event.method === 'PATCH' && isEmptyChange(result.data)) {
+    throw httpError(400, 'Nothing to change: send at least one field.')
+  }
+  return result.data
 }
 
 export function parseQuery<S extends z.ZodType>(event: H3Event, schema: S): z.output<S> {

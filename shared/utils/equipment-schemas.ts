@@ -1,5 +1,5 @@
 import { z } from 'zod'
-import { calendarDate } from './input-ranges'
+import { calendarDate, changesSchema } from './input-ranges'
 
 const serialNumber = z.string({ error: 'Enter the serial number.' }).trim()
   .min(1, { error: 'Enter the serial number.' })
@@ -18,7 +18,7 @@ export const counterSchema = z.object({
 })
 export type CounterInput = z.input<typeof counterSchema>
 
-export const updateCounterSchema = counterSchema.partial().extend({
+export const updateCounterSchema = changesSchema(counterSchema).extend({
   active: z.boolean({ error: 'Active must be true or false.' }).optional()
 })
 
@@ -30,7 +30,7 @@ export const benchRigSchema = z.object({
 })
 export type BenchRigInput = z.input<typeof benchRigSchema>
 
-export const updateBenchRigSchema = benchRigSchema.partial().extend({
+export const updateBenchRigSchema = changesSchema(benchRigSchema).extend({
   active: z.boolean({ error: 'Active must be true or false.' }).optional()
 })
 

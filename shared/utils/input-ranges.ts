@@ -52,3 +52,20 @@ export function databaseInteger(message: string) {
 
 /** Page numbers of lists: far beyond any real list, small enough for any offset. */
 export const pageNumber = z.coerce.number().int().min(1).max(100_000, { error: 'There is no such page.' }).default(1)
+
+type WithoutDefault<F> = F extends z.ZodDefault<infer Inner> ? Inner : F
+type ChangesShape<S extends z.core.$ZodShape> = { [K in keyof S]: z.ZodOptional<WithoutDefault<S[K]>> }
+
+/**
+ * The schema of a change (PATCH) made from the schema of a new record: every field optional and
+ * no defaults. zod's own `.partial()` keeps defaults, so a change that names one field would
+ * quietly reset every defaulted field the person did not send (a site, a clearance status).
+ */
+export function changesSchema<S extends z.core.$ZodShape>(schema: z.ZodObject<S>): z.ZodObject<ChangesShape<S>> {
+  const shape: Record<string, z.ZodType> = {}
+  for (const [key, field] of Object.entries(schema.shape)) {
+    const inner = field instanceof z.ZodDefault ? field.unwrap() : field
+    shape[key] = (inner as z.ZodType).optional()
+  }
+  return z.object(shape) as unknown as z.ZodObject<ChangesShape<S>>
+}

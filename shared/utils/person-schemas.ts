@@ -1,5 +1,5 @@
 import { z } from 'zod'
-import { calendarDate, pageNumber } from './input-ranges'
+import { calendarDate, changesSchema, pageNumber } from './input-ranges'
 
 export const MEDICAL_CLEARANCE_LABELS = {
   'cleared': 'Cleared',
@@ -27,7 +27,7 @@ export const personSchema = z.object({
 })
 export type PersonInput = z.input<typeof personSchema>
 
-export const updatePersonSchema = personSchema.partial().extend({
+export const updatePersonSchema = changesSchema(personSchema).extend({
   active: z.boolean().optional()
 })
 
