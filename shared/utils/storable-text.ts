@@ -3,13 +3,12 @@
  * and JSON columns) or half of a UTF-16 surrogate pair (no character at all; it would be saved as
  * a replacement mark, silently changing what the person typed). Both are refused, never cleaned.
  */
-const NUL = /\u0000/
 const LONE_SURROGATE = /[\uD800-\uDBFF](?![\uDC00-\uDFFF])|(?<![\uD800-\uDBFF])[\uDC00-\uDFFF]/
 
 export type UnstorableReason = 'nul' | 'lone-surrogate'
 
 export function unstorableReason(text: string): UnstorableReason | null {
-  if (NUL.test(text)) return 'nul'
+  if (text.includes('\u0000')) return 'nul'
   if (LONE_SURROGATE.test(text)) return 'lone-surrogate'
   return null
 }
