@@ -12,6 +12,10 @@
  * A route without a line fails this test, and so does a line whose route no longer exists.
  * Path parameters are filled from tests/support/estate.ts (one row of each resource).
  *
+ * A route with both an `:id` and a body also needs one line in VALID_BODIES: a body its schema
+ * accepts, so that the id, not the body, decides the answer to another organization's caller
+ * (routes validate the body before they look the id up).
+ *
  * What each cell must answer: anonymous → 401 (public routes: anything but a 5xx); a role not
  * allowed → 403; an allowed role → neither 401, 403 nor 5xx (often 400, since the body is empty);
  * an allowed role with another organization's ids → 404, the same as a missing record;
@@ -96,6 +100,26 @@ const WHO_MAY: Record<string, string> = {
   'GET /api/verify/:token': 'public'
 }
 
+const VALID_BODIES: Record<string, unknown> = {
+  'PATCH /api/bench-rigs/:id': { description: 'Matrix probe' },
+  'PATCH /api/counters/:id': { description: 'Matrix probe' },
+  'PATCH /api/fit-tests/:id': { version: 1 },
+  'POST /api/fit-tests/:id/finish': { version: 1 },
+  'POST /api/fit-tests/:id/revisions': { reason: 'Matrix probe of tenancy' },
+  'POST /api/fit-tests/:id/withdraw': { reason: 'Matrix probe of tenancy' },
+  'PATCH /api/mask-types/:id': { headformRetestDays: 365 },
+  'PATCH /api/mask-units/:id': { size: 'M' },
+  'POST /api/mask-units/:id/state': { state: 'held', reason: 'Matrix probe of tenancy' },
+  'PATCH /api/people/:id': { jobTitle: 'Operator' },
+  'POST /api/readiness-checks/:id/abandon': { reason: 'Matrix probe of tenancy' },
+  'POST /api/readiness-checks/:id/fail': {},
+  'POST /api/readiness-checks/:id/steps': { stepIndex: 0, value: true },
+  'PATCH /api/readiness-templates/:id': { active: true },
+  'PATCH /api/respirator-models/:id': { notes: 'Matrix probe' },
+  'PATCH /api/users/:id': { displayName: 'Matrix Wearer' },
+  'POST /api/users/:id/invitation': {}
+}
+
 type Access = { kind: 'public' } | { kind: 'signed-in', roles: Set<Role> | 'any', ownOnly: Set<Role> }
 
 function readAccess(who: string): Access {
@@ -128,16 +152,18 @@ afterAll(closeTestDb)
 describe('the authorization matrix', () => {
   it('has exactly one row for every route under server/api', () => {
     const missing = routes.filter(r => !(r.key in WHO_MAY)).map(r => r.key)
-    const stale = Object.keys(WHO_MAY).filter(key => !routes.some(r => r.key === key))
+    const stale = [...Object.keys(WHO_MAY), ...Object.keys(VALID_BODIES)].filter(key => !routes.some(r => r.key === key))
+    const needBody = routes.filter(r => r.params.includes('id') && BODY_METHODS.has(r.method) && WHO_MAY[r.key] !== 'public' && !(r.key in VALID_BODIES)).map(r => r.key)
+    expect(needBody, `Add a body the schema accepts to VALID_BODIES in tests/api/authorization-matrix.test.ts for: ${needBody.join(', ')}`).toEqual([])
     expect(missing, `Add a row to WHO_MAY in tests/api/authorization-matrix.test.ts for: ${missing.join(', ')} (who may call it, per DOMAIN.md's role table)`).toEqual([])
-    expect(stale, `Remove these rows from WHO_MAY; their routes are gone: ${stale.join(', ')}`).toEqual([])
+    expect(stale, `Remove these rows from WHO_MAY or VALID_BODIES; their routes are gone: ${stale.join(', ')}`).toEqual([])
   })
 
   it('answers every route, caller and organization as the role table says', async () => {
     const violations: string[] = []
     let cells = 0
     const call = async (client: Client, route: DiscoveredRoute, path: string) => {
-      const reply = await client.request(route.method, path, BODY_METHODS.has(route.method) ? {} : undefined)
+      const reply = await client.request(route.method, path, BODY_METHODS.has(route.method) ? VALID_BODIES[route.key] ?? {} : undefined)
       return reply.status
     }
     const check = (label: string, status: number, ok: (s: number) => boolean, expected: string) => {
