@@ -9,6 +9,7 @@ export interface DiscoveredRoute {
   /** `METHOD pattern`, the key of every expectations table. */
   key: string
   params: string[]
+  /** Absolute path of the route file. */
   file: string
 }
 
@@ -44,7 +45,7 @@ export function discoverRoutes(): DiscoveredRoute[] {
     })
     const method = match[2]!.toUpperCase() as DiscoveredRoute['method']
     const pattern = `/api${path.length ? `/${path.join('/')}` : ''}`
-    routes.push({ method, pattern, key: `${method} ${pattern}`, params, file: `server/api/${rel}` })
+    routes.push({ method, pattern, key: `${method} ${pattern}`, params, file })
   }
   return routes.sort((a, b) => a.key.localeCompare(b.key))
 }
