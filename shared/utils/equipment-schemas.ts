@@ -13,7 +13,7 @@ export const counterSchema = z.object({
   sampleFlowCm3PerMin: z.number({ error: 'Enter the sample flow in cm³/min.' })
     .positive({ error: 'The sample flow must be above 0 cm³/min.' })
     .max(10_000, { error: 'A sample flow above 10,000 cm³/min is not plausible; check the unit (cm³/min).' }),
-  calibrationDueOn: calendarDate('Enter the calibration due date as a date.', 'ten-years-ahead').nullable().default(null),
+  calibrationDueOn: calendarDate('Enter the calibration due date as a date.').nullable().default(null),
   siteId: siteId.default(null)
 })
 export type CounterInput = z.input<typeof counterSchema>

@@ -17,21 +17,13 @@ function latestPlausibleToday(now = new Date()): string {
   return new Date(now.getTime() + 86_400_000).toISOString().slice(0, 10)
 }
 
-function yearsAhead(years: number, now = new Date()): string {
-  const d = new Date(now.getTime())
-  d.setUTCFullYear(d.getUTCFullYear() + years)
-  return d.toISOString().slice(0, 10)
-}
+export type DateLimit = 'today' | 'none'
 
-export type DateLimit = 'today' | 'ten-years-ahead' | 'none'
-
-/** A calendar date (YYYY-MM-DD) from 1900 on, and no later than `latest` allows. */
+/** A calendar date (YYYY-MM-DD) from 1900 to 2999; with `latest: 'today'`, nothing after today. */
 export function calendarDate(message: string, latest: DateLimit = 'none') {
   return z.iso.date({ error: message })
     .refine(v => v >= EARLIEST_RECORD_DATE, { error: 'Use a date from 1900 on.' })
-    .refine(v => latest === 'none' || v <= (latest === 'today' ? latestPlausibleToday() : yearsAhead(10)), {
-      error: latest === 'today' ? 'This date is in the future; use the date it happened.' : 'Use a date within the next ten years.'
-    })
+    .refine(v => latest === 'none' || v <= latestPlausibleToday(), { error: 'This date is in the future; use the date it happened.' })
     .refine(v => v <= '2999-12-31', { error: 'Use a date before the year 3000.' })
 }
 

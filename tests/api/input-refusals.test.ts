@@ -109,7 +109,7 @@ describe('values outside what can be real', () => {
   it('a calibration date in year 9999 and a fit test in year 0 are refused', async () => {
     const counter = await admin.post('/api/counters', { serialNumber: `Y-${randomUUID().slice(0, 6)}`, sampleFlowCm3PerMin: 100, calibrationDueOn: '9999-12-31' })
     expect(counter.status).toBe(400)
-    expect(counter.body.data.fieldErrors.calibrationDueOn).toMatch(/ten years/)
+    expect(counter.body.data.fieldErrors.calibrationDueOn).toMatch(/before the year 3000/)
     const test = await admin.post('/api/fit-tests', {
       idempotencyKey: randomUUID(), personId: program.personId, respiratorModelId: program.halfMaskId, respiratorSize: 'M',
       protocolKey: 'osha-standard', counterId: program.counterId, siteId: program.siteId, performedAt: '0000-01-01T00:00:00Z'
