@@ -26,9 +26,10 @@ const handler: NitroErrorHandler = (error, event) => {
   // A duplicate, an out-of-range value or a lost race is the request's problem, not the server's.
   const refusal = databaseRefusal(error)
   if (refusal) {
-    setResponseStatus(event, refusal.statusCode)
+    const statusCode = refusal.statusCode ?? 400
+    setResponseStatus(event, statusCode)
     setResponseHeader(event, 'Content-Type', 'application/json')
-    return send(event, JSON.stringify({ statusCode: refusal.statusCode, message: refusal.message, data: refusal.data }))
+    return send(event, JSON.stringify({ statusCode, message: refusal.message, data: refusal.data }))
   }
   if (!isDatabaseOutage(error)) return
   setResponseStatus(event, 503, 'Database unavailable')

@@ -1,5 +1,3 @@
-import type { H3Error } from 'h3'
-
 /**
  * PostgreSQL refusals that say something about the request, not about the server: a duplicate, a
  * value out of range, a concurrent change. Each becomes a 4xx with a sentence to act on. In every
@@ -38,7 +36,7 @@ const DUPLICATES: Record<string, { field: string, message: string }> = {
 
 const CONCURRENT_CHANGE = 'Someone else changed this at the same moment, so nothing was saved. Reload to see their change, then try again.'
 
-export function databaseRefusal(error: unknown): H3Error | null {
+export function databaseRefusal(error: unknown): ReturnType<typeof httpError> | null {
   const pg = findPgError(error)
   if (!pg) return null
   const { code, constraint } = pg
