@@ -1,4 +1,5 @@
 import type { NitroErrorHandler } from 'nitropack'
+import { databaseRefusal } from './utils/database-refusals'
 
 const OUTAGE_CODES = new Set(['ECONNREFUSED', 'ECONNRESET', 'ETIMEDOUT', 'EPIPE', 'ENOTFOUND', '57P01', '57P02', '57P03', '08000', '08001', '08003', '08004', '08006'])
 const OUTAGE_MESSAGES = [/Connection terminated/i, /timeout exceeded when trying to connect/i, /connect ECONNREFUSED/i, /the database system is (starting up|shutting down)/i]
@@ -21,8 +22,16 @@ function isDatabaseOutage(error: unknown): boolean {
  * reconnects on the next request once PostgreSQL is back, so nothing needs restarting.
  */
 const handler: NitroErrorHandler = (error, event) => {
-  if (!isDatabaseOutage(error)) return
   if (!event.path.startsWith('/api/')) return
+  // A duplicate, an out-of-range value or a lost race is the request's problem, not the server's.
+  const refusal = databaseRefusal(error)
+  if (refusal) {
+    const statusCode = refusal.statusCode ?? 400
+    setResponseStatus(event, statusCode)
+    setResponseHeader(event, 'Content-Type', 'application/json')
+    return send(event, JSON.stringify({ statusCode, message: refusal.message, data: refusal.data }))
+  }
+  if (!isDatabaseOutage(error)) return
   setResponseStatus(event, 503, 'Database unavailable')
   setResponseHeader(event, 'Content-Type', 'application/json')
   setResponseHeader(event, 'Retry-After', 5)

@@ -89,6 +89,22 @@ export function assertReadyToFinish(row: FitTestRow, evaluationOk: boolean, firs
   }
 }
 
+type Tx = Parameters<Parameters<Database['transaction']>[0]>[0]
+
+/**
+ * Locks every revision of a record (SELECT … FOR UPDATE, in revision order) for the rest of the
+ * transaction and returns them as they are now. Withdrawing, correcting and finishing all take
+ * this lock first, so of two racing changes one waits, then sees the other's result and is
+ * refused with a 409 instead of acting on a state that no longer holds.
+ */
+export async function lockRecord(tx: Tx, organizationId: string, recordId: string): Promise<FitTestRow[]> {
+  const t = schema.fitTests
+  return tx.select().from(t)
+    .where(and(eq(t.organizationId, organizationId), eq(t.recordId, recordId)))
+    .orderBy(asc(t.revision))
+    .for('update')
+}
+
 export function assertDraft(row: FitTestRow) {
   if (row.status !== 'draft') {
     throw httpError(409, 'This record is finished and locked. To correct it, start a revision with a reason.')

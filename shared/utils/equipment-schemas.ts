@@ -1,4 +1,5 @@
 import { z } from 'zod'
+import { calendarDate, changesSchema } from './input-ranges'
 
 const serialNumber = z.string({ error: 'Enter the serial number.' }).trim()
   .min(1, { error: 'Enter the serial number.' })
@@ -12,12 +13,12 @@ export const counterSchema = z.object({
   sampleFlowCm3PerMin: z.number({ error: 'Enter the sample flow in cm³/min.' })
     .positive({ error: 'The sample flow must be above 0 cm³/min.' })
     .max(10_000, { error: 'A sample flow above 10,000 cm³/min is not plausible; check the unit (cm³/min).' }),
-  calibrationDueOn: z.iso.date({ error: 'Enter the calibration due date as a date.' }).nullable().default(null),
+  calibrationDueOn: calendarDate('Enter the calibration due date as a date.').nullable().default(null),
   siteId: siteId.default(null)
 })
 export type CounterInput = z.input<typeof counterSchema>
 
-export const updateCounterSchema = counterSchema.partial().extend({
+export const updateCounterSchema = changesSchema(counterSchema).extend({
   active: z.boolean({ error: 'Active must be true or false.' }).optional()
 })
 
@@ -29,7 +30,7 @@ export const benchRigSchema = z.object({
 })
 export type BenchRigInput = z.input<typeof benchRigSchema>
 
-export const updateBenchRigSchema = benchRigSchema.partial().extend({
+export const updateBenchRigSchema = changesSchema(benchRigSchema).extend({
   active: z.boolean({ error: 'Active must be true or false.' }).optional()
 })
 

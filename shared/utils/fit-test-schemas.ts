@@ -1,5 +1,6 @@
 import { z } from 'zod'
 import { BUILT_IN_PROTOCOLS } from './compute'
+import { calendarDate, databaseInteger, pageNumber, pastInstant } from './input-ranges'
 
 /**
  * Items checked before a fit test starts. Any one not met blocks the test:
@@ -41,7 +42,8 @@ export const exerciseEntrySchema = z.object({
   ambientAfter: concentration,
   ambientMean: concentration,
   inMask: concentration,
-  inMaskCount: z.number().int({ error: 'A particle count is a whole number.' }).nonnegative().nullable().default(null)
+  inMaskCount: z.number().int({ error: 'A particle count is a whole number.' }).nonnegative()
+    .max(1e12, { error: 'That count is beyond any counter\'s range; check the number.' }).nullable().default(null)
 })
 
 export const QUALITATIVE_AGENTS = {
@@ -70,7 +72,7 @@ export type FitTestEntry = z.infer<typeof fitTestEntrySchema>
 const protocolKeys = BUILT_IN_PROTOCOLS.map(p => p.key) as [string, ...string[]]
 export const QUALITATIVE_PROTOCOL_KEY = 'qualitative-app-a'
 
-const isoInstant = z.iso.datetime({ offset: true, error: 'Give the test time as a date and time.' })
+const isoInstant = pastInstant('Give the test time as a date and time.')
 
 export const createFitTestSchema = z.object({
   idempotencyKey: z.string().min(8, { error: 'The idempotency key is too short.' }).max(100),
@@ -89,7 +91,7 @@ export const createFitTestSchema = z.object({
 export type CreateFitTest = z.input<typeof createFitTestSchema>
 
 export const updateFitTestSchema = z.object({
-  version: z.number({ error: 'The draft version is missing; reload the page.' }).int().positive(),
+  version: databaseInteger('The draft version is missing; reload the page.').positive(),
   respiratorSize: z.string().trim().min(1, { error: 'Choose the size.' }).max(40).optional(),
   counterId: z.uuid({ error: 'Choose the counter used.' }).nullable().optional(),
   performedAt: isoInstant.optional(),
@@ -100,7 +102,7 @@ export const updateFitTestSchema = z.object({
 export type UpdateFitTest = z.input<typeof updateFitTestSchema>
 
 export const finishFitTestSchema = z.object({
-  version: z.number({ error: 'The draft version is missing; reload the page.' }).int().positive()
+  version: databaseInteger('The draft version is missing; reload the page.').positive()
 })
 
 export const reasonSchema = z.object({
@@ -114,12 +116,12 @@ export const listFitTestsQuerySchema = z.object({
   siteId: z.uuid().optional(),
   result: z.enum(['pass', 'fail', 'draft', 'withdrawn']).optional(),
   kind: z.enum(['quantitative', 'qualitative']).optional(),
-  from: z.iso.date({ error: 'From must be a date (YYYY-MM-DD).' }).optional(),
-  to: z.iso.date({ error: 'To must be a date (YYYY-MM-DD).' }).optional(),
+  from: calendarDate('From must be a date (YYYY-MM-DD).').optional(),
+  to: calendarDate('To must be a date (YYYY-MM-DD).').optional(),
   q: z.string().trim().max(120).optional(),
   sort: z.enum(FIT_TEST_SORTS).default('performedAt'),
   dir: z.enum(['asc', 'desc']).default('desc'),
-  page: z.coerce.number().int().min(1).default(1),
+  page: pageNumber,
   pageSize: z.coerce.number().int().min(1).max(200).default(25)
 })
 export type ListFitTestsQuery = z.infer<typeof listFitTestsQuerySchema>

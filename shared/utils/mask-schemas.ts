@@ -1,5 +1,6 @@
 import { z } from 'zod'
 import type { AcceptanceRule } from './compute'
+import { changesSchema } from './input-ranges'
 import type { MaskPart } from './readiness-schemas'
 
 export const MASK_UNIT_STATES = ['in-service', 'held', 'retired'] as const
@@ -28,7 +29,7 @@ export const maskTypeSchema = z.object({
     .max(3650, { error: 'Use at most 3,650 days (ten years).' })
 })
 export type MaskTypeInput = z.input<typeof maskTypeSchema>
-export const updateMaskTypeSchema = maskTypeSchema.partial()
+export const updateMaskTypeSchema = changesSchema(maskTypeSchema)
 
 export const maskUnitSchema = z.object({
   serialNumber: text('the serial number', 60),
@@ -38,7 +39,7 @@ export const maskUnitSchema = z.object({
   siteId: z.uuid({ error: 'Choose a site.' }).nullable().default(null)
 })
 export type MaskUnitInput = z.input<typeof maskUnitSchema>
-export const updateMaskUnitSchema = maskUnitSchema.partial()
+export const updateMaskUnitSchema = changesSchema(maskUnitSchema)
 
 export const changeMaskStateSchema = z.object({
   state: z.enum(MASK_UNIT_STATES, { error: 'Choose in service, held or retired.' }),
@@ -74,6 +75,7 @@ export function subChecksFor(type: { hasDrinkTube: boolean, hasExhalationValve: 
 
 const concentration = (what: string) => z.number({ error: `Enter the ${what} concentration in particles/cm³.` })
   .min(0, { error: `The ${what} concentration cannot be negative.` })
+  .max(1e9, { error: `That ${what} concentration is beyond any counter's range; check the decimal point.` })
 
 export const headformTestSchema = z.object({
   maskUnitId: z.uuid({ error: 'Choose the mask unit.' }),
@@ -81,7 +83,8 @@ export const headformTestSchema = z.object({
   outside: concentration('outside').positive({ error: 'The outside concentration must be above 0; is the aerosol generator running?' }),
   inside: concentration('inside'),
   sampleSeconds: z.number({ error: 'Enter the bench sample in seconds.' }).positive({ error: 'The bench sample must last more than 0 seconds.' }).max(3600, { error: 'Use at most 3,600 seconds.' }),
-  subChecks: z.record(z.string(), z.boolean({ error: 'Mark each sub-check pass or fail.' })).default({}),
+  subChecks: z.record(z.string().max(60), z.boolean({ error: 'Mark each sub-check pass or fail.' }))
+    .refine(r => Object.keys(r).length <= 20, { error: 'A mask has at most 20 sub-checks.' }).default({}),
   notes: z.string().trim().max(600, { error: 'Use at most 600 characters.' }).default('')
 })
 export type HeadformTestForm = z.input<typeof headformTestSchema>

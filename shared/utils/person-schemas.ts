@@ -1,4 +1,5 @@
 import { z } from 'zod'
+import { calendarDate, changesSchema, pageNumber } from './input-ranges'
 
 export const MEDICAL_CLEARANCE_LABELS = {
   'cleared': 'Cleared',
@@ -19,14 +20,14 @@ export const personSchema = z.object({
   jobTitle: optionalText(120, 'Job'),
   email: z.string().trim().toLowerCase().transform(v => v === '' ? null : v)
     .pipe(z.email({ error: 'Enter a valid e-mail address, or leave it empty.' }).nullable()).nullable().optional(),
-  medicalClearanceOn: z.iso.date({ error: 'Give the clearance date as YYYY-MM-DD.' }).nullable().optional()
+  medicalClearanceOn: calendarDate('Give the clearance date as YYYY-MM-DD.', 'today').nullable().optional()
     .or(z.literal('').transform(() => null)),
   medicalClearanceStatus: z.enum(statuses, { error: `Medical clearance is one of: ${statuses.join(', ')}.` }).default('pending'),
   notes: optionalText(2000, 'Notes')
 })
 export type PersonInput = z.input<typeof personSchema>
 
-export const updatePersonSchema = personSchema.partial().extend({
+export const updatePersonSchema = changesSchema(personSchema).extend({
   active: z.boolean().optional()
 })
 
@@ -45,7 +46,7 @@ export const listPeopleQuerySchema = z.object({
   status: z.enum(PERSON_STATUSES).optional(),
   sort: z.enum(['fullName', 'employeeNumber', 'nextDueOn']).default('fullName'),
   dir: z.enum(['asc', 'desc']).default('asc'),
-  page: z.coerce.number().int().min(1).default(1),
+  page: pageNumber,
   pageSize: z.coerce.number().int().min(1).max(200).default(25)
 })
 

@@ -1,5 +1,6 @@
 import { z } from 'zod'
 import { acceptanceRuleSchema } from './compute'
+import { databaseInteger } from './input-ranges'
 import type { AcceptanceRule } from './compute'
 
 /** Parts a mask type may have; a step or sub-check that needs a part is skipped for a mask without it. */
@@ -79,8 +80,8 @@ export const startReadinessCheckSchema = z.object({
 export type StartReadinessCheck = z.infer<typeof startReadinessCheckSchema>
 
 export const recordStepSchema = z.object({
-  stepIndex: z.number({ error: 'Say which step this is.' }).int().min(0),
-  value: z.union([z.number({ error: 'Enter a number.' }), z.boolean()], { error: 'Enter a number, or mark pass or fail.' }),
+  stepIndex: databaseInteger('Say which step this is.').min(0),
+  value: z.union([z.number({ error: 'Enter a number.' }).min(-1e12, { error: 'That reading is beyond any instrument\'s range.' }).max(1e12, { error: 'That reading is beyond any instrument\'s range.' }), z.boolean()], { error: 'Enter a number, or mark pass or fail.' }),
   note: z.string().trim().max(600, { error: 'Use at most 600 characters.' }).optional()
 })
 export type RecordStep = z.infer<typeof recordStepSchema>

@@ -8,6 +8,11 @@ export interface Reply<T = any> {
 
 let addressCounter = 0
 
+/** A body sent exactly as given (text that may not be JSON at all), still labelled as JSON. */
+export class RawBody {
+  constructor(readonly text: string) {}
+}
+
 /**
  * A browser-like HTTP client with its own cookie jar and its own client address
  * (the test app trusts X-Forwarded-For), so one test's failed sign-ins never throttle another's.
@@ -26,7 +31,7 @@ export class Client {
     const headers: Record<string, string> = { 'x-forwarded-for': this.address, 'accept': 'application/json' }
     if (body !== undefined) headers['content-type'] = 'application/json'
     if (this.cookies.size) headers.cookie = [...this.cookies].map(([k, v]) => `${k}=${v}`).join('; ')
-    const response = await fetch(new URL(path, baseUrl), { method, headers, body: body === undefined ? undefined : JSON.stringify(body), redirect: 'manual' })
+    const response = await fetch(new URL(path, baseUrl), { method, headers, body: body === undefined ? undefined : body instanceof RawBody ? body.text : JSON.stringify(body), redirect: 'manual' })
     for (const line of response.headers.getSetCookie()) {
       const [pair] = line.split(';')
       const [name, ...rest] = pair!.split('=')

@@ -1,4 +1,4 @@
-import { and, eq, inArray } from 'drizzle-orm'
+import { and, eq, inArray, sql } from 'drizzle-orm'
 import { importPeopleSchema, importPersonRowSchema } from '#shared/utils/person-schemas'
 import { fieldErrorsOf } from '../../utils/validation'
 
@@ -9,7 +9,8 @@ import { fieldErrorsOf } from '../../utils/validation'
 export default defineEventHandler(async (event) => {
   const caller = await requireRole(event, 'tester')
   const { rows } = await parseBody(event, importPeopleSchema)
-  const firstRow = Number(getQuery(event).firstRow ?? 2)
+  const firstRowAsked = Number(getQuery(event).firstRow ?? 2)
+  const firstRow = Number.isSafeInteger(firstRowAsked) && firstRowAsked >= 1 ? firstRowAsked : 2
   const sites = await listSites(caller.organizationId)
   const siteByName = new Map(sites.map(s => [s.name.toLowerCase(), s.id]))
   const errors: { row: number, messages: string[] }[] = []
@@ -24,12 +25,15 @@ export default defineEventHandler(async (event) => {
   })
   const p = schema.people
   const numbers = good.map(g => g.employeeNumber).filter((n): n is string => Boolean(n))
-  const known = numbers.length
-    ? new Map((await useDb().select({ id: p.id, employeeNumber: p.employeeNumber }).from(p).where(and(eq(p.organizationId, caller.organizationId), inArray(p.employeeNumber, numbers)))).map(r => [r.employeeNumber, r.id]))
-    : new Map()
   let created = 0
   let updated = 0
   await useDb().transaction(async (tx) => {
+    // One import per organization at a time, and the roster read under that lock: the same file
+    // sent twice at once then reads as it does sent twice in a row (created, then updated).
+    await tx.execute(sql`select pg_advisory_xact_lock(hashtextextended(${`people-import:${caller.organizationId}`}, 0))`)
+    const known = numbers.length
+      ? new Map((await tx.select({ id: p.id, employeeNumber: p.employeeNumber }).from(p).where(and(eq(p.organizationId, caller.organizationId), inArray(p.employeeNumber, numbers)))).map(r => [r.employeeNumber, r.id]))
+      : new Map<string | null, string>()
     for (const person of good) {
       const id = person.employeeNumber ? known.get(person.employeeNumber) : undefined
       if (id) {

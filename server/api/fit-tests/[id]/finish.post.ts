@@ -23,6 +23,11 @@ export default defineEventHandler(async (event) => {
 
   const t = schema.fitTests
   await useDb().transaction(async (tx) => {
+    // Under the record lock: a withdrawal that landed while this correction was open stands.
+    const revisions = await lockRecord(tx, caller.organizationId, row.recordId)
+    if (revisions.some(r => r.status === 'withdrawn')) {
+      throw httpError(409, 'This record was withdrawn while the correction was open; a correction does not reinstate it. Start a new fit test instead.')
+    }
     const [done] = await tx.update(t).set({ ...stored, status: 'finished', finishedAt: new Date(), finishedByUserId: caller.id, version: row.version + 1 })
       .where(and(eq(t.id, id), eq(t.version, version), eq(t.status, 'draft'))).returning({ id: t.id })
     if (!done) throw staleDraftError()
