@@ -41,6 +41,29 @@ export default defineNuxtConfig({
     }
   },
   compatibilityDate: '2026-11-01',
+  nitro: {
+    errorHandler: '~~/server/error-handler.ts',
+    // Lets the database layer know which request sent a statement (see server/utils/db-outcome.ts).
+    experimental: { asyncContext: true },
+    // The fit card PDF embeds the same IBM Plex Sans the pages use, shipped with the server.
+    serverAssets: [{
+      baseName: 'fonts',
+      dir: fileURLToPath(new URL('./node_modules/@fontsource/ibm-plex-sans/files', import.meta.url)),
+      pattern: 'ibm-plex-sans-latin-{400,600}-normal.woff'
+    }]
+  },
+  typescript: {
+    strict: true
+  },
+  eslint: {
+    config: {
+      stylistic: {
+        quotes: 'single',
+        commaDangle: 'never',
+        braceStyle: '1tbs'
+      }
+    }
+  },
   // Response headers and the Content-Security-Policy. Body limits and the cross-site check live in
   // server/middleware/request-guard.ts (they answer with a sentence); sign-in limits in
   // server/utils/limiter.ts (shared through PostgreSQL), so the module's own versions are off.
@@ -79,29 +102,6 @@ export default defineNuxtConfig({
     corsHandler: false,
     allowedMethodsRestricter: false,
     removeLoggers: false
-  },
-  nitro: {
-    errorHandler: '~~/server/error-handler.ts',
-    // Lets the database layer know which request sent a statement (see server/utils/db-outcome.ts).
-    experimental: { asyncContext: true },
-    // The fit card PDF embeds the same IBM Plex Sans the pages use, shipped with the server.
-    serverAssets: [{
-      baseName: 'fonts',
-      dir: fileURLToPath(new URL('./node_modules/@fontsource/ibm-plex-sans/files', import.meta.url)),
-      pattern: 'ibm-plex-sans-latin-{400,600}-normal.woff'
-    }]
-  },
-  typescript: {
-    strict: true
-  },
-  eslint: {
-    config: {
-      stylistic: {
-        quotes: 'single',
-        commaDangle: 'never',
-        braceStyle: '1tbs'
-      }
-    }
   },
   tailwindcss: {
     cssPath: '~/assets/css/main.css',

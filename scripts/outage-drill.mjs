@@ -2,7 +2,6 @@
 // drafts are being created against a running `npm start`, brings it back, and prints what was
 // acknowledged against what is stored — and whether every "nothing was changed" answer was true.
 // Uses the demo tester; writes drafts only (invented data, marked by an idempotency-key prefix).
-import { randomUUID } from 'node:crypto'
 import { readFileSync } from 'node:fs'
 import { fileURLToPath } from 'node:url'
 import pg from 'pg'

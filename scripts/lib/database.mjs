@@ -39,7 +39,7 @@ function withCredentials(url, user, password) {
 }
 
 function literal(text) {
-  return `'${String(text).replace(/'/g, "''")}'`
+  return `'${String(text).replace(/'/g, '\'\'')}'`
 }
 
 /**
