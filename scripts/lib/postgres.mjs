@@ -105,6 +105,7 @@ export async function ensureCluster({ dataDir, port, superuserPassword }) {
       const [cmd, argv] = asPostgres(join(bin, 'initdb'), ['-D', dataDir, '-U', 'postgres', '--auth-local=trust', '--auth-host=scram-sha-256', `--pwfile=${pwfile}`, '-E', 'UTF8', '--locale=C.UTF-8'])
       const result = capture(cmd, argv)
       if (result.code !== 0) throw new Error(`initdb failed:\n${result.stderr || result.stdout}`)
+      writeHba(dataDir)
     } finally {
       rmSync(pwfile, { force: true })
     }
@@ -162,6 +163,12 @@ host    all   all   127.0.0.1/32    scram-sha-256
 host    all   all   ::1/128         scram-sha-256
 `
 
+function writeHba(dataDir) {
+  const hbaFile = join(dataDir, 'pg_hba.conf')
+  writeFileSync(hbaFile, HBA, { mode: 0o600 })
+  if (isRoot) chownSync(hbaFile, uidOf('postgres'), gidOf('postgres'))
+}
+
 /**
  * Makes a running cluster ask for passwords over TCP: sets the superuser's password (kept under
  * .data/) and, for a cluster made before this rule (trust for everyone), rewrites pg_hba.conf and
@@ -183,8 +190,7 @@ function secureCluster(bin, dataDir, port, superuserPassword) {
   }
   if (current.startsWith(HBA_MARK)) return
   log.step('Switching the private cluster to password (scram) authentication on loopback…')
-  writeFileSync(hbaFile, HBA, { mode: 0o600 })
-  if (isRoot) chownSync(hbaFile, uidOf('postgres'), gidOf('postgres'))
+  writeHba(dataDir)
   const reload = capture(psql, [...args, '-c', 'select pg_reload_conf()'], { env })
   if (reload.code !== 0) throw new Error(`Could not reload the cluster's access rules:\n${reload.stderr.trim()}`)
 }

@@ -57,7 +57,8 @@ describe('the private cluster', () => {
     const cluster = await ensureCluster({ dataDir, port, superuserPassword })
     const withoutPassword = new URL(cluster.url())
     withoutPassword.password = ''
-    await expect(answers(withoutPassword.toString())).rejects.toMatchObject({ code: expect.stringMatching(/^28/) })
+    // The server asks for a password (scram); a client without one cannot even answer the challenge.
+    await expect(answers(withoutPassword.toString())).rejects.toThrow(/password/i)
     const wrong = new URL(cluster.url())
     wrong.password = 'not-the-password'
     // 28P01: invalid_password (PostgreSQL documentation, Appendix A).
@@ -72,7 +73,8 @@ describe('the private cluster', () => {
     expect(readFileSync(hba, 'utf8')).toMatch(/scram-sha-256/)
     const withoutPassword = new URL(cluster.url())
     withoutPassword.password = ''
-    await expect(answers(withoutPassword.toString())).rejects.toMatchObject({ code: expect.stringMatching(/^28/) })
+    // The server asks for a password (scram); a client without one cannot even answer the challenge.
+    await expect(answers(withoutPassword.toString())).rejects.toThrow(/password/i)
     expect(await answers(cluster.url())).toBe(true)
   })
 
