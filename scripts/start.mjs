@@ -43,19 +43,18 @@ setInterval(() => {
 try {
   await ensureDependencies(projectDir)
   const { ensureDatabaseServer, startMailCatcher, startBuiltApp, startService, appEnv, httpOk } = await import('./lib/services.mjs')
-  const { ensureDatabase, applyMigrations, isEmpty } = await import('./lib/database.mjs')
+  const { prepareDatabase, isEmpty } = await import('./lib/database.mjs')
   const { ensureBuild } = await import('./lib/build.mjs')
   const { demoSignIns, DEMO_PASSWORD } = await import('./seed/demo-accounts.mjs')
 
   const server = await ensureDatabaseServer(projectDir, { externalUrl: process.env.NUXT_DATABASE_URL, port: pgPort })
   stops.push(server.stop)
-  const databaseUrl = server.external ? server.serverUrl : await ensureDatabase(server.serverUrl, 'sealwright')
-
   log.step('Applying migrations…')
-  await applyMigrations(databaseUrl)
-  if (await isEmpty(databaseUrl)) {
+  const { ownerUrl, appUrl, separated } = await prepareDatabase(server, 'sealwright', { passwords: server.passwords, ownerUrl: process.env.SEALWRIGHT_DATABASE_OWNER_URL })
+  if (!separated) log.warn('The app and the migrations share one database role; set SEALWRIGHT_DATABASE_OWNER_URL to migrate as the owner (see README).')
+  if (await isEmpty(ownerUrl)) {
     log.step('First run: loading the demo scenario…')
-    const code = await run(join(projectDir, 'node_modules', '.bin', 'tsx'), ['scripts/seed-demo.ts'], { cwd: projectDir, env: { ...process.env, DATABASE_URL: databaseUrl } })
+    const code = await run(join(projectDir, 'node_modules', '.bin', 'tsx'), ['scripts/seed-demo.ts'], { cwd: projectDir, env: { ...process.env, DATABASE_URL: ownerUrl } })
     if (code !== 0) throw new Error('Loading the demo scenario failed; see the messages above.')
   } else {
     log.ok('Database ready (demo scenario already loaded).')
@@ -70,7 +69,7 @@ try {
     outboxUrl = `http://127.0.0.1:${mailHttpPort}`
   }
 
-  const env = appEnv({ databaseUrl, sessionPassword: sessionPassword(join(projectDir, '.data', 'session-password')), port, smtpUrl, outboxUrl })
+  const env = appEnv({ databaseUrl: appUrl, sessionPassword: sessionPassword(join(projectDir, '.data', 'session-password')), port, smtpUrl, outboxUrl })
   if (dev) {
     const app = await startService('dev', join(projectDir, 'node_modules', '.bin', 'nuxt'), ['dev', '--host', '127.0.0.1', '--port', String(port)], {
       cwd: projectDir, env, timeoutMs: 120_000, ready: () => httpOk(`http://127.0.0.1:${port}/api/health`)
