@@ -1,4 +1,5 @@
 import { z } from 'zod'
+import { partialWithoutDefaults } from './patch-schema'
 
 const serialNumber = z.string({ error: 'Enter the serial number.' }).trim()
   .min(1, { error: 'Enter the serial number.' })
@@ -17,7 +18,7 @@ export const counterSchema = z.object({
 })
 export type CounterInput = z.input<typeof counterSchema>
 
-export const updateCounterSchema = counterSchema.partial().extend({
+export const updateCounterSchema = partialWithoutDefaults(counterSchema).extend({
   active: z.boolean({ error: 'Active must be true or false.' }).optional()
 })
 
@@ -29,7 +30,7 @@ export const benchRigSchema = z.object({
 })
 export type BenchRigInput = z.input<typeof benchRigSchema>
 
-export const updateBenchRigSchema = benchRigSchema.partial().extend({
+export const updateBenchRigSchema = partialWithoutDefaults(benchRigSchema).extend({
   active: z.boolean({ error: 'Active must be true or false.' }).optional()
 })
 

@@ -1,5 +1,6 @@
 import { z } from 'zod'
 import { BUILT_IN_PROTOCOLS } from './compute'
+import { partialWithoutDefaults } from './patch-schema'
 
 /**
  * Items checked before a fit test starts. Any one not met blocks the test:
@@ -93,8 +94,9 @@ export const updateFitTestSchema = z.object({
   respiratorSize: z.string().trim().min(1, { error: 'Choose the size.' }).max(40).optional(),
   counterId: z.uuid({ error: 'Choose the counter used.' }).nullable().optional(),
   performedAt: isoInstant.optional(),
-  preTest: preTestSchema.optional(),
-  entry: fitTestEntrySchema.optional(),
+  // Each pre-test item and each part of the entry sent replaces only itself; the exercises are one list.
+  preTest: partialWithoutDefaults(preTestSchema).optional(),
+  entry: partialWithoutDefaults(fitTestEntrySchema).optional(),
   seriesText: z.string().max(2_000_000, { error: 'The series is larger than 2 MB.' }).nullable().optional()
 })
 export type UpdateFitTest = z.input<typeof updateFitTestSchema>

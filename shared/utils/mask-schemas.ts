@@ -1,5 +1,6 @@
 import { z } from 'zod'
 import type { AcceptanceRule } from './compute'
+import { partialWithoutDefaults } from './patch-schema'
 import type { MaskPart } from './readiness-schemas'
 
 export const MASK_UNIT_STATES = ['in-service', 'held', 'retired'] as const
@@ -28,7 +29,7 @@ export const maskTypeSchema = z.object({
     .max(3650, { error: 'Use at most 3,650 days (ten years).' })
 })
 export type MaskTypeInput = z.input<typeof maskTypeSchema>
-export const updateMaskTypeSchema = maskTypeSchema.partial()
+export const updateMaskTypeSchema = partialWithoutDefaults(maskTypeSchema)
 
 export const maskUnitSchema = z.object({
   serialNumber: text('the serial number', 60),
@@ -38,7 +39,7 @@ export const maskUnitSchema = z.object({
   siteId: z.uuid({ error: 'Choose a site.' }).nullable().default(null)
 })
 export type MaskUnitInput = z.input<typeof maskUnitSchema>
-export const updateMaskUnitSchema = maskUnitSchema.partial()
+export const updateMaskUnitSchema = partialWithoutDefaults(maskUnitSchema)
 
 export const changeMaskStateSchema = z.object({
   state: z.enum(MASK_UNIT_STATES, { error: 'Choose in service, held or retired.' }),

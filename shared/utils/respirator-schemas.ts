@@ -1,5 +1,6 @@
 import { z } from 'zod'
 import { RESPIRATOR_CLASSES } from './compute'
+import { partialWithoutDefaults } from './patch-schema'
 
 const classKeys = RESPIRATOR_CLASSES.map(c => c.key) as [string, ...string[]]
 
@@ -13,4 +14,4 @@ export const respiratorModelSchema = z.object({
 })
 export type RespiratorModelInput = z.input<typeof respiratorModelSchema>
 
-export const updateRespiratorModelSchema = respiratorModelSchema.partial().extend({ active: z.boolean().optional() })
+export const updateRespiratorModelSchema = partialWithoutDefaults(respiratorModelSchema).extend({ active: z.boolean().optional() })

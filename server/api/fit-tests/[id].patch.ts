@@ -1,6 +1,7 @@
 import { and, eq } from 'drizzle-orm'
 import { updateFitTestSchema } from '#shared/utils/fit-test-schemas'
 import { idParamSchema } from '#shared/utils/user-schemas'
+import { definedOnly } from '#shared/utils/patch-schema'
 
 export default defineEventHandler(async (event) => {
   const caller = await requireRole(event, 'tester')
@@ -15,6 +16,9 @@ export default defineEventHandler(async (event) => {
   const next = {
     ...before,
     ...changes,
+    // Only the pre-test items and entry parts that were sent change.
+    preTest: { ...before.preTest, ...definedOnly(changes.preTest) },
+    entry: { ...before.entry, ...definedOnly(changes.entry) },
     counterId,
     sampleFlowCm3PerMin: refs.counter?.sampleFlowCm3PerMin ?? null,
     performedAt: changes.performedAt ? new Date(changes.performedAt) : before.performedAt,
