@@ -81,6 +81,8 @@ export const createFitTestSchema = z.object({
   respiratorSize: z.string({ error: 'Choose the size.' }).trim().min(1, { error: 'Choose the size.' }).max(40),
   protocolKey: z.enum([...protocolKeys, QUALITATIVE_PROTOCOL_KEY] as [string, ...string[]], { error: 'Choose a protocol.' }),
   counterId: z.uuid({ error: 'Choose the counter used.' }).nullable().default(null),
+  /** The serial-numbered unit worn, when the model's units are tracked. */
+  maskUnitId: z.uuid({ error: 'Choose the mask unit the wearer wears.' }).nullable().default(null),
   siteId: z.uuid({ error: 'Choose the site.' }),
   performedAt: isoInstant.optional(),
   preTest: preTestSchema.default({ medicalClearanceCurrent: false, nothingCrossingSeal: false, userSealCheckDone: false, comfortAcceptable: false }),
@@ -93,6 +95,7 @@ export const updateFitTestSchema = z.object({
   version: z.number({ error: 'The draft version is missing; reload the page.' }).int().positive(),
   respiratorSize: z.string().trim().min(1, { error: 'Choose the size.' }).max(40).optional(),
   counterId: z.uuid({ error: 'Choose the counter used.' }).nullable().optional(),
+  maskUnitId: z.uuid({ error: 'Choose the mask unit the wearer wears.' }).nullable().optional(),
   performedAt: isoInstant.optional(),
   // Each pre-test item and each part of the entry sent replaces only itself; the exercises are one list.
   preTest: partialWithoutDefaults(preTestSchema).optional(),
