@@ -20,9 +20,9 @@ export interface CardSubject {
   uncoveredResults?: UncoveredPolicy
 }
 
-export type CardDecision =
-  | { issue: true, coverage: CoverageFlag }
-  | { issue: false, reason: 'not-finished' | 'did-not-pass' | 'withdrawn' | 'superseded' | 'not-covered', message: string }
+export type CardDecision
+  = | { issue: true, coverage: CoverageFlag }
+    | { issue: false, reason: 'not-finished' | 'did-not-pass' | 'withdrawn' | 'superseded' | 'not-covered', message: string }
 
 /** A card only for the current, finished, passing revision — and not for an uncovered one when the program refuses those. */
 export function cardDecision(subject: CardSubject): CardDecision {
