@@ -142,8 +142,12 @@ export async function moveUnitState(caller: Caller, unitId: string, to: MaskUnit
   })
 }
 
-/** Field message when the unit chosen for a fit test cannot be used, or null when it is fine. */
-export async function maskUnitProblem(organizationId: string, input: { respiratorModelId: string, respiratorSize: string, maskUnitId: string | null }): Promise<string | null> {
+/**
+ * Field message when the unit chosen for a fit test cannot be used, or null when it is fine. A
+ * correction (revision 2 on) describes a test already done, so the unit's state today does not
+ * matter there: only that it is the model and size tested.
+ */
+export async function maskUnitProblem(organizationId: string, input: { respiratorModelId: string, respiratorSize: string, maskUnitId: string | null, revision?: number }): Promise<string | null> {
   const u = schema.maskUnits
   if (!input.maskUnitId) {
     const [tracked] = await useDb().select({ id: u.id }).from(u).where(and(eq(u.organizationId, organizationId), eq(u.respiratorModelId, input.respiratorModelId))).limit(1)
@@ -153,19 +157,20 @@ export async function maskUnitProblem(organizationId: string, input: { respirato
   if (!unit) return 'Choose one of your mask units.'
   if (unit.respiratorModelId !== input.respiratorModelId) return `Unit ${unit.serialNumber} is another model than the respirator chosen.`
   if (unit.size !== input.respiratorSize) return `Unit ${unit.serialNumber} is size ${unit.size}, not ${input.respiratorSize}.`
+  if ((input.revision ?? 1) > 1) return null
   if (unit.state === 'held') return `Unit ${unit.serialNumber} is held: it needs a passing headform test before anyone wears it.`
   if (unit.state === 'retired') return `Unit ${unit.serialNumber} is retired.`
   return null
 }
 
 /** Refuses a fit-test form whose mask unit cannot be used, beside the field. */
-export async function assertMaskUnitChoice(organizationId: string, input: { respiratorModelId: string, respiratorSize: string, maskUnitId: string | null }) {
+export async function assertMaskUnitChoice(organizationId: string, input: { respiratorModelId: string, respiratorSize: string, maskUnitId: string | null, revision?: number }) {
   const problem = await maskUnitProblem(organizationId, input)
   if (problem) throw httpError(400, `Check the form: ${problem}`, { fieldErrors: { maskUnitId: problem } })
 }
 
 /** At finish: the unit may have been held or retired since the draft was started. */
-export async function assertUsableMaskUnit(organizationId: string, row: { respiratorModelId: string, respiratorSize: string, maskUnitId: string | null }) {
+export async function assertUsableMaskUnit(organizationId: string, row: { respiratorModelId: string, respiratorSize: string, maskUnitId: string | null, revision: number }) {
   const problem = await maskUnitProblem(organizationId, row)
   if (problem) throw httpError(409, `The test cannot be finished: ${problem}`, { fieldErrors: { maskUnitId: problem } })
 }

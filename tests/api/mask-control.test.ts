@@ -168,4 +168,17 @@ describe('a fit test with a tracked model', () => {
     expect(finish.status).toBe(409)
     expect(finish.body.message).toMatch(/is held/)
   })
+
+  it('lets a correction of a past test finish although its unit has been held since', async () => {
+    const unit = await newUnit()
+    const created = await tester.post('/api/fit-tests', body({ maskUnitId: unit.id }))
+    const done = await tester.post(`/api/fit-tests/${created.body.id}/finish`, { version: created.body.version })
+    expect(done.status).toBe(200)
+    await setState(tester, unit.id, 'held', 'Valve seat worn')
+    const draft = await tester.post(`/api/fit-tests/${done.body.id}/revisions`, { reason: 'The tester name was recorded wrongly.' })
+    expect(draft.status).toBe(201)
+    const corrected = await tester.post(`/api/fit-tests/${draft.body.id}/finish`, { version: draft.body.version })
+    expect(corrected.status, JSON.stringify(corrected.body)).toBe(200)
+    expect(corrected.body.maskUnit).toMatchObject({ id: unit.id })
+  })
 })

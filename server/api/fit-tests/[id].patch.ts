@@ -25,7 +25,7 @@ export default defineEventHandler(async (event) => {
     seriesText: changes.seriesText === undefined ? before.seriesText : changes.seriesText
   }
   if (changes.maskUnitId !== undefined || changes.respiratorSize !== undefined) {
-    await assertMaskUnitChoice(caller.organizationId, { respiratorModelId: before.respiratorModelId, respiratorSize: next.respiratorSize, maskUnitId: next.maskUnitId })
+    await assertMaskUnitChoice(caller.organizationId, { respiratorModelId: before.respiratorModelId, respiratorSize: next.respiratorSize, maskUnitId: next.maskUnitId, revision: before.revision })
   }
   const { stored } = computeStoredResult(next, await findOrganization(caller.organizationId), refs.site.timeZone)
   const t = schema.fitTests
