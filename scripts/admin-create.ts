@@ -34,14 +34,20 @@ function fail(message: string): never {
   process.exit(1)
 }
 
-const { values } = parseArgs({
-  options: {
-    'email': { type: 'string' }, 'name': { type: 'string' }, 'organization': { type: 'string' },
-    'rule-set': { type: 'string' }, 'site': { type: 'string' }, 'time-zone': { type: 'string' }, 'base-url': { type: 'string' }
-  },
-  strict: true
-})
-const parsed = optionsSchema.safeParse(values)
+function readArgs() {
+  try {
+    return parseArgs({
+      options: {
+        'email': { type: 'string' }, 'name': { type: 'string' }, 'organization': { type: 'string' },
+        'rule-set': { type: 'string' }, 'site': { type: 'string' }, 'time-zone': { type: 'string' }, 'base-url': { type: 'string' }
+      },
+      strict: true
+    }).values
+  } catch (error) {
+    fail(error instanceof Error ? error.message : String(error))
+  }
+}
+const parsed = optionsSchema.safeParse(readArgs())
 if (!parsed.success) fail(parsed.error.issues[0]!.message)
 const input = parsed.data
 
