@@ -8,6 +8,9 @@ import { sessionPassword } from './lib/secrets.mjs'
 
 const projectDir = fileURLToPath(new URL('..', import.meta.url))
 const dev = process.argv.includes('--dev')
+// The demo scenario (with its well-known passwords) goes only into the private cluster this command
+// created, or into another database when asked for explicitly.
+const demoAsked = process.argv.includes('--demo')
 const port = Number(process.env.SEALWRIGHT_PORT || 3000)
 const pgPort = Number(process.env.SEALWRIGHT_PG_PORT || 54329)
 const smtpPort = Number(process.env.SEALWRIGHT_SMTP_PORT || 2525)
@@ -43,7 +46,7 @@ setInterval(() => {
 try {
   await ensureDependencies(projectDir)
   const { ensureDatabaseServer, startMailCatcher, startBuiltApp, startService, appEnv, httpOk } = await import('./lib/services.mjs')
-  const { prepareDatabase, isEmpty } = await import('./lib/database.mjs')
+  const { prepareDatabase, isEmpty, hasDemoAccounts, hasNoAccount } = await import('./lib/database.mjs')
   const { ensureBuild } = await import('./lib/build.mjs')
   const { demoSignIns, DEMO_PASSWORD } = await import('./seed/demo-accounts.mjs')
 
@@ -52,13 +55,19 @@ try {
   log.step('Applying migrations…')
   const { ownerUrl, appUrl, separated } = await prepareDatabase(server, 'sealwright', { passwords: server.passwords, ownerUrl: process.env.SEALWRIGHT_DATABASE_OWNER_URL })
   if (!separated) log.warn('The app and the migrations share one database role; set SEALWRIGHT_DATABASE_OWNER_URL to migrate as the owner (see README).')
-  if (await isEmpty(ownerUrl)) {
+  const empty = await isEmpty(ownerUrl)
+  const loadDemo = empty && (!server.external || demoAsked)
+  if (loadDemo) {
     log.step('First run: loading the demo scenario…')
     const code = await run(join(projectDir, 'node_modules', '.bin', 'tsx'), ['scripts/seed-demo.ts'], { cwd: projectDir, env: { ...process.env, DATABASE_URL: ownerUrl } })
     if (code !== 0) throw new Error('Loading the demo scenario failed; see the messages above.')
+  } else if (empty) {
+    log.ok('Database ready. It is empty and holds no account: no demo accounts are created in a database you provided.')
   } else {
-    log.ok('Database ready (demo scenario already loaded).')
+    log.ok(demoAsked ? 'Database ready. It already holds data, so the demo scenario was not loaded.' : 'Database ready.')
   }
+  const showDemo = await hasDemoAccounts(ownerUrl)
+  const needsAdmin = !showDemo && await hasNoAccount(ownerUrl)
 
   let smtpUrl = externalSmtp
   let outboxUrl = ''
@@ -86,14 +95,20 @@ try {
   log.plain('')
   log.ok(`Sealwright is running at ${log.bold(`http://127.0.0.1:${port}`)}${dev ? ' (hot reload)' : ''}`)
   log.plain('')
-  log.plain(`Demo sign-ins (password for every account: ${DEMO_PASSWORD}):`)
-  let lastOrg = ''
-  for (const row of demoSignIns()) {
-    if (row.organization !== lastOrg) {
-      log.plain(`  ${row.organization}`)
-      lastOrg = row.organization
+  if (showDemo) {
+    log.plain(`Demo sign-ins (password for every account: ${DEMO_PASSWORD}):`)
+    let lastOrg = ''
+    for (const row of demoSignIns()) {
+      if (row.organization !== lastOrg) {
+        log.plain(`  ${row.organization}`)
+        lastOrg = row.organization
+      }
+      log.plain(`    ${row.role.padEnd(9)} ${row.email}`)
     }
-    log.plain(`    ${row.role.padEnd(9)} ${row.email}`)
+  } else if (needsAdmin) {
+    log.plain('No account exists yet. Create the first program admin (it prints a link to set the password):')
+    log.plain('  NUXT_DATABASE_URL=… npm run admin:create -- --email you@example.org --name "Your Name" --organization "Your Program" --rule-set us-osha')
+    log.plain('To try the product with invented data instead, use an empty database and `npm start -- --demo`.')
   }
   if (outboxUrl) log.plain('\nMail is caught locally; admins read it on the Outbox page.')
   log.plain('Press Ctrl-C to stop.')

@@ -179,3 +179,26 @@ export async function prepareDatabase(server, name, { recreate = false, password
   await grantAppPrivileges(ownerUrl, ROLES.app)
   return { ownerUrl, appUrl, separated: true }
 }
+
+async function queryOne(url, sql, params = []) {
+  const client = new pg.Client({ connectionString: url })
+  await client.connect()
+  try {
+    return (await client.query(sql, params)).rows[0]
+  } finally {
+    await client.end()
+  }
+}
+
+/** True when the demo scenario's organizations are in the database (so its sign-ins are worth printing). */
+export async function hasDemoAccounts(url) {
+  const { DEMO_ORGANIZATIONS } = await import('../seed/demo-accounts.mjs')
+  const row = await queryOne(url, 'select count(*)::int as n from organizations where slug = any($1)', [DEMO_ORGANIZATIONS.map(o => o.slug)])
+  return row.n > 0
+}
+
+/** True when no user account exists at all: someone must create the first admin. */
+export async function hasNoAccount(url) {
+  const row = await queryOne(url, 'select count(*)::int as n from users')
+  return row.n === 0
+}

@@ -1,6 +1,6 @@
 import { z } from 'zod'
 import { BUILT_IN_PROTOCOLS } from './compute'
-import { calendarDate, databaseInteger, pageNumber, pastInstant } from './input-ranges'
+import { calendarDate, changesSchema, databaseInteger, pageNumber, pastInstant } from './input-ranges'
 
 /**
  * Items checked before a fit test starts. Any one not met blocks the test:
@@ -82,6 +82,8 @@ export const createFitTestSchema = z.object({
   respiratorSize: z.string({ error: 'Choose the size.' }).trim().min(1, { error: 'Choose the size.' }).max(40),
   protocolKey: z.enum([...protocolKeys, QUALITATIVE_PROTOCOL_KEY] as [string, ...string[]], { error: 'Choose a protocol.' }),
   counterId: z.uuid({ error: 'Choose the counter used.' }).nullable().default(null),
+  /** The serial-numbered unit worn, when the model's units are tracked. */
+  maskUnitId: z.uuid({ error: 'Choose the mask unit the wearer wears.' }).nullable().default(null),
   siteId: z.uuid({ error: 'Choose the site.' }),
   performedAt: isoInstant.optional(),
   preTest: preTestSchema.default({ medicalClearanceCurrent: false, nothingCrossingSeal: false, userSealCheckDone: false, comfortAcceptable: false }),
@@ -94,9 +96,11 @@ export const updateFitTestSchema = z.object({
   version: databaseInteger('The draft version is missing; reload the page.').positive(),
   respiratorSize: z.string().trim().min(1, { error: 'Choose the size.' }).max(40).optional(),
   counterId: z.uuid({ error: 'Choose the counter used.' }).nullable().optional(),
+  maskUnitId: z.uuid({ error: 'Choose the mask unit the wearer wears.' }).nullable().optional(),
   performedAt: isoInstant.optional(),
-  preTest: preTestSchema.optional(),
-  entry: fitTestEntrySchema.optional(),
+  // Each pre-test item and each part of the entry sent replaces only itself; the exercises are one list.
+  preTest: changesSchema(preTestSchema).optional(),
+  entry: changesSchema(fitTestEntrySchema).optional(),
   seriesText: z.string().max(2_000_000, { error: 'The series is larger than 2 MB.' }).nullable().optional()
 })
 export type UpdateFitTest = z.input<typeof updateFitTestSchema>

@@ -10,6 +10,7 @@ export default defineEventHandler(async (event) => {
   if (existing[0]) return fitTestView(caller, await findFitTest(caller.organizationId, existing[0].id))
 
   const refs = await resolveReferences(caller.organizationId, input)
+  await assertMaskUnitChoice(caller.organizationId, input)
   const protocol = protocolFor(input.protocolKey, input.kind)
   const org = await findOrganization(caller.organizationId)
   const draft = {
@@ -26,6 +27,7 @@ export default defineEventHandler(async (event) => {
     respiratorModel: refs.model.model,
     respiratorClass: refs.model.respiratorClass,
     respiratorSize: input.respiratorSize,
+    maskUnitId: input.maskUnitId,
     protocolKey: input.protocolKey,
     protocol,
     sampleFlowCm3PerMin: refs.counter?.sampleFlowCm3PerMin ?? null,

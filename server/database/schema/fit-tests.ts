@@ -4,6 +4,7 @@ import type { FitTestEntry, PreTestChecks } from '../../../shared/utils/fit-test
 import type { Protocol } from '../../../shared/utils/compute'
 import { id, timestamps } from './columns'
 import { counters } from './equipment'
+import { maskUnits } from './masks'
 import { organizations, sites } from './organizations'
 import { people } from './people'
 import { respiratorModels } from './respirators'
@@ -38,6 +39,8 @@ export const fitTests = pgTable('fit_tests', {
   respiratorModel: text().notNull(),
   respiratorClass: text().notNull(),
   respiratorSize: text().notNull(),
+  /** The serial-numbered unit the wearer used, when the model's units are tracked. */
+  maskUnitId: uuid().references(() => maskUnits.id, { onDelete: 'restrict' }),
 
   kind: text().$type<'quantitative' | 'qualitative'>().notNull().default('quantitative'),
   protocolKey: text().notNull(),
@@ -69,16 +72,23 @@ export const fitTests = pgTable('fit_tests', {
   uniqueIndex('fit_tests_idempotency_unique').on(table.organizationId, table.idempotencyKey)
 ])
 
-/** A wearer's fit card: an unguessable token that a public page verifies. One per record. */
+/**
+ * A wearer's fit card: an unguessable token that a public page verifies. One per finished, passing
+ * revision, so a card printed before a correction verifies as superseded rather than showing the
+ * corrected data under the old print. Cards made before revisions had their own (`fitTestId`
+ * null) stand for their record's current revision.
+ */
 export const fitCards = pgTable('fit_cards', {
   id: id(),
   organizationId: uuid().notNull().references(() => organizations.id, { onDelete: 'cascade' }),
   recordId: uuid().notNull(),
+  fitTestId: uuid().references(() => fitTests.id, { onDelete: 'cascade' }),
   token: text().notNull(),
   createdAt: timestamp({ withTimezone: true }).notNull().defaultNow()
 }, table => [
   uniqueIndex('fit_cards_token_unique').on(table.token),
-  uniqueIndex('fit_cards_record_unique').on(table.recordId)
+  index('fit_cards_record_idx').on(table.recordId),
+  uniqueIndex('fit_cards_fit_test_unique').on(table.fitTestId)
 ])
 
 export const fitTestsRelations = relations(fitTests, ({ one }) => ({
