@@ -1,11 +1,11 @@
 import { describe, expect, it } from 'vitest'
 import { counterSchema, updateCounterSchema } from '../../shared/utils/equipment-schemas'
 import { updateMaskTypeSchema } from '../../shared/utils/mask-schemas'
-import { definedOnly, hasChanges } from '../../shared/utils/patch-schema'
+import { definedOnly } from '../../shared/utils/patch-schema'
 
 // A partial edit must carry only what was sent (issue 8, item 5): no default may fill a field
 // that the body left out. Common practice for PATCH (no published source).
-describe('partialWithoutDefaults', () => {
+describe('changesSchema', () => {
   it('keeps the create schema\'s defaults but drops them from the edit schema', () => {
     expect(counterSchema.parse({ serialNumber: 'C-1', sampleFlowCm3PerMin: 100 })).toMatchObject({ description: '', calibrationDueOn: null, siteId: null })
     expect(updateCounterSchema.parse({ active: false })).toEqual({ active: false })
@@ -20,15 +20,6 @@ describe('partialWithoutDefaults', () => {
 
   it('lets a nullable field be cleared on purpose', () => {
     expect(updateMaskTypeSchema.parse({ headformPassLevel: null })).toEqual({ headformPassLevel: null })
-  })
-
-  it.each([
-    [{}, false],
-    [{ a: undefined }, false],
-    [{ a: null }, true],
-    [{ a: false }, true]
-  ])('hasChanges(%o) is %s', (changes, expected) => {
-    expect(hasChanges(changes)).toBe(expected)
   })
 
   it('definedOnly drops what was not sent', () => {

@@ -5,7 +5,7 @@ import { idParamSchema } from '#shared/utils/user-schemas'
 export default defineEventHandler(async (event) => {
   const caller = await requireRole(event, 'tester')
   const { id } = parseParams(event, idParamSchema)
-  const changes = await parseChanges(event, updateBenchRigSchema)
+  const changes = await parseBody(event, updateBenchRigSchema)
   const before = await findBenchRig(caller.organizationId, id)
   await assertSite(caller.organizationId, changes.siteId)
   if (changes.counterId) await assertPairableCounter(caller.organizationId, changes.counterId)

@@ -5,7 +5,7 @@ import { idParamSchema } from '#shared/utils/user-schemas'
 export default defineEventHandler(async (event) => {
   const caller = await requireRole(event, 'tester')
   const { id } = parseParams(event, idParamSchema)
-  const changes = await parseChanges(event, updateCounterSchema)
+  const changes = await parseBody(event, updateCounterSchema)
   const before = await findCounter(caller.organizationId, id)
   await assertSite(caller.organizationId, changes.siteId)
   return useDb().transaction(async (tx) => {

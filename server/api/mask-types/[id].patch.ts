@@ -5,7 +5,7 @@ import { idParamSchema } from '#shared/utils/user-schemas'
 export default defineEventHandler(async (event) => {
   const caller = await requireRole(event, 'tester')
   const { id } = parseParams(event, idParamSchema)
-  const changes = await parseChanges(event, updateMaskTypeSchema)
+  const changes = await parseBody(event, updateMaskTypeSchema)
   const before = await findMaskType(caller.organizationId, id)
   return useDb().transaction(async (tx) => {
     const [row] = await tx.update(schema.maskTypes).set(changes)

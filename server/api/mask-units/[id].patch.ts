@@ -5,7 +5,7 @@ import { idParamSchema } from '#shared/utils/user-schemas'
 export default defineEventHandler(async (event) => {
   const caller = await requireRole(event, 'tester')
   const { id } = parseParams(event, idParamSchema)
-  const changes = await parseChanges(event, updateMaskUnitSchema)
+  const changes = await parseBody(event, updateMaskUnitSchema)
   const before = await findMaskUnit(caller.organizationId, id)
   await assertUnitRefs(caller.organizationId, changes)
   await useDb().transaction(async (tx) => {

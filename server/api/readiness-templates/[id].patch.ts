@@ -5,7 +5,7 @@ import { idParamSchema } from '#shared/utils/user-schemas'
 export default defineEventHandler(async (event) => {
   const caller = await requireRole(event, 'admin')
   const { id } = parseParams(event, idParamSchema)
-  const changes = await parseChanges(event, updateReadinessTemplateSchema)
+  const changes = await parseBody(event, updateReadinessTemplateSchema)
   const before = await findTemplate(caller.organizationId, id)
   // The whole template is checked again, so a partial edit cannot leave duplicate steps behind.
   const merged = readinessTemplateSchema.safeParse({ name: changes.name ?? before.name, scope: before.scope, steps: changes.steps ?? before.steps })

@@ -5,7 +5,7 @@ import { idParamSchema } from '#shared/utils/user-schemas'
 export default defineEventHandler(async (event) => {
   const caller = await requireRole(event, 'admin')
   const { id } = parseParams(event, idParamSchema)
-  const changes = await parseChanges(event, updateRespiratorModelSchema)
+  const changes = await parseBody(event, updateRespiratorModelSchema)
   const before = await findRespiratorModel(caller.organizationId, id)
   const r = schema.respiratorModels
   return useDb().transaction(async (tx) => {
