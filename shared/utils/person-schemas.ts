@@ -26,16 +26,23 @@ export const personSchema = z.object({
 })
 export type PersonInput = z.input<typeof personSchema>
 
+/**
+ * A partial edit: only the fields present in the body change. The clearance status has no
+ * default here (zod applies a default even inside `.optional()`), so editing a job title never
+ * resets it.
+ */
 export const updatePersonSchema = personSchema.partial().extend({
+  medicalClearanceStatus: z.enum(statuses, { error: `Medical clearance is one of: ${statuses.join(', ')}.` }).optional(),
   active: z.boolean().optional()
 })
 
-export const PERSON_STATUSES = ['current', 'due-soon', 'overdue', 'never-tested'] as const
+export const PERSON_STATUSES = ['current', 'due-soon', 'overdue', 'failed', 'never-tested'] as const
 export type PersonFitStatus = typeof PERSON_STATUSES[number]
 export const PERSON_STATUS_LABELS: Record<PersonFitStatus, string> = {
   'current': 'Current',
   'due-soon': 'Due within 30 days',
   'overdue': 'Overdue',
+  'failed': 'Failed — retest needed',
   'never-tested': 'Never tested'
 }
 

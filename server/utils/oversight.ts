@@ -1,0 +1,115 @@
+import { and, desc, eq, inArray } from 'drizzle-orm'
+import { localDate } from '#shared/utils/fit-test-evaluate'
+import { clearanceStanding, overallStatus, respiratorStandings } from '#shared/utils/oversight'
+import type { ClearanceRecord, FitEvent, RespiratorStanding } from '#shared/utils/oversight'
+
+/** Finished fit tests and imported history of an organization (optionally some people), as fit events per person. */
+export async function loadFitEvents(organizationId: string, personIds?: string[]): Promise<Map<string, FitEvent[]>> {
+  const t = schema.fitTests
+  const h = schema.fitHistoryEntries
+  const db = useDb()
+  const [tests, history] = await Promise.all([
+    db.select({
+      id: t.id, personId: t.personId, respiratorModelId: t.respiratorModelId, make: t.respiratorMake, model: t.respiratorModel,
+      respiratorClass: t.respiratorClass, size: t.respiratorSize, performedAt: t.performedAt, passed: t.passed, dueOn: t.dueOn, timeZone: schema.sites.timeZone
+    }).from(t).innerJoin(schema.sites, eq(schema.sites.id, t.siteId))
+      .where(and(eq(t.organizationId, organizationId), eq(t.status, 'finished'), personIds ? inArray(t.personId, personIds) : undefined)),
+    db.select().from(h).where(and(eq(h.organizationId, organizationId), personIds ? inArray(h.personId, personIds) : undefined))
+  ])
+  const out = new Map<string, FitEvent[]>()
+  const push = (personId: string, e: FitEvent) => out.set(personId, [...(out.get(personId) ?? []), e])
+  for (const r of tests) {
+    if (r.passed === null) continue
+    push(r.personId, { respiratorKey: r.respiratorModelId, respiratorModelId: r.respiratorModelId, make: r.make, model: r.model, respiratorClass: r.respiratorClass, size: r.size, testedOn: localDate(r.performedAt, r.timeZone), passed: r.passed, dueOn: r.dueOn, source: 'sealwright', fitTestId: r.id })
+  }
+  for (const r of history) {
+    push(r.personId, { respiratorKey: r.respiratorModelId ?? `${r.respiratorMake} ${r.respiratorModel}`.toLowerCase(), respiratorModelId: r.respiratorModelId, make: r.respiratorMake, model: r.respiratorModel, respiratorClass: r.respiratorClass, size: r.respiratorSize, testedOn: r.testedOn, passed: r.passed === 'pass', dueOn: r.dueOn, source: 'imported', fitTestId: null })
+  }
+  return out
+}
+
+export async function loadAssignments(organizationId: string, personIds?: string[]) {
+  const a = schema.respiratorAssignments
+  const m = schema.respiratorModels
+  const rows = await useDb().select({ personId: a.personId, respiratorModelId: a.respiratorModelId, make: m.make, model: m.model, respiratorClass: m.respiratorClass })
+    .from(a).innerJoin(m, eq(m.id, a.respiratorModelId))
+    .where(and(eq(a.organizationId, organizationId), personIds ? inArray(a.personId, personIds) : undefined))
+  const out = new Map<string, typeof rows>()
+  for (const r of rows) out.set(r.personId, [...(out.get(r.personId) ?? []), r])
+  return out
+}
+
+export async function loadClearances(organizationId: string, personIds?: string[]) {
+  const c = schema.medicalClearances
+  const rows = await useDb().select().from(c).where(and(eq(c.organizationId, organizationId), personIds ? inArray(c.personId, personIds) : undefined))
+  const out = new Map<string, (typeof rows)[number][]>()
+  for (const r of rows) out.set(r.personId, [...(out.get(r.personId) ?? []), r])
+  return out
+}
+
+export interface PersonStanding {
+  respirators: RespiratorStanding[]
+  status: ReturnType<typeof overallStatus>
+  nextDueOn: string | null
+  clearance: ReturnType<typeof clearanceStanding>
+}
+
+export function standingOf(events: FitEvent[], assigned: Parameters<typeof respiratorStandings>[1], clearances: ClearanceRecord[], today: string): PersonStanding {
+  const respirators = respiratorStandings(events, assigned, today)
+  const dues = respirators.map(r => r.dueOn).filter((d): d is string => Boolean(d)).sort()
+  return { respirators, status: respirators.length ? overallStatus(respirators) : 'never-tested', nextDueOn: dues[0] ?? null, clearance: clearanceStanding(clearances, today) }
+}
+
+/** Fit and clearance standing of every person in the organization (or the ones asked for). */
+export async function loadStandings(organizationId: string, today: string, personIds?: string[]) {
+  const [events, assignments, clearances] = await Promise.all([
+    loadFitEvents(organizationId, personIds),
+    loadAssignments(organizationId, personIds),
+    loadClearances(organizationId, personIds)
+  ])
+  return (personId: string) => standingOf(events.get(personId) ?? [], assignments.get(personId) ?? [], clearances.get(personId) ?? [], today)
+}
+
+export type DueReason = 'overdue' | 'due-soon' | 'never-tested' | 'failed' | 'clearance-lapsed' | 'clearance-lapsing' | 'no-clearance'
+
+export interface DueItem {
+  reason: DueReason
+  /** 'fit-test:<respirator key>' or 'clearance'. */
+  dueItem: string
+  dueOn: string | null
+  label: string
+}
+
+/** What needs action for one person: each respirator not current, and a clearance lapsed or lapsing. */
+export function dueItemsOf(standing: PersonStanding): DueItem[] {
+  const items: DueItem[] = []
+  for (const r of standing.respirators) {
+    if (r.status === 'current') continue
+    const name = `${r.make} ${r.model}${r.size ? `, size ${r.size}` : ''}`
+    items.push({ reason: r.status, dueItem: `fit-test:${r.respiratorKey}`, dueOn: r.dueOn, label: name })
+  }
+  const c = standing.clearance
+  if (c.status === 'lapsed') items.push({ reason: 'clearance-lapsed', dueItem: 'clearance', dueOn: c.validUntil, label: 'Medical clearance' })
+  if (c.status === 'lapsing') items.push({ reason: 'clearance-lapsing', dueItem: 'clearance', dueOn: c.validUntil, label: 'Medical clearance' })
+  if (c.status === 'none' && standing.respirators.length) items.push({ reason: 'no-clearance', dueItem: 'clearance', dueOn: null, label: 'Medical clearance' })
+  return items
+}
+
+/** Everything the person page shows about oversight: respirators, clearances, reminders sent, the linked account. */
+export async function personOversight(organizationId: string, personId: string, today: string) {
+  const c = schema.medicalClearances
+  const r = schema.reminderLog
+  const db = useDb()
+  const [standingFor, clearances, reminders] = await Promise.all([
+    loadStandings(organizationId, today, [personId]),
+    db.select().from(c).where(and(eq(c.organizationId, organizationId), eq(c.personId, personId))).orderBy(desc(c.clearedOn)),
+    db.select().from(r).where(and(eq(r.organizationId, organizationId), eq(r.personId, personId))).orderBy(desc(r.createdAt)).limit(100)
+  ])
+  const standing = standingFor(personId)
+  return {
+    standing,
+    dueItems: dueItemsOf(standing),
+    clearances,
+    reminders: reminders.map(x => ({ id: x.id, dueItem: x.dueItem, dueOn: x.dueOn, step: x.step, recipient: x.recipient, kind: x.kind, trigger: x.trigger, sentAt: x.sentAt, error: x.error, createdAt: x.createdAt }))
+  }
+}
