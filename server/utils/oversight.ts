@@ -1,7 +1,9 @@
-import { and, desc, eq, inArray } from 'drizzle-orm'
+import { and, desc, eq, inArray, isNull, sql } from 'drizzle-orm'
 import { localDate } from '#shared/utils/fit-test-evaluate'
-import { clearanceStanding, overallStatus, respiratorStandings } from '#shared/utils/oversight'
+import { RESPIRATOR_CLASSES } from '#shared/utils/compute'
+import { clearanceStanding, coveringClearance, overallStatus, respiratorStandings } from '#shared/utils/oversight'
 import type { ClearanceRecord, FitEvent, RespiratorStanding } from '#shared/utils/oversight'
+import type { Caller } from './auth'
 
 /** Finished fit tests and imported history of an organization (optionally some people), as fit events per person. */
 export async function loadFitEvents(organizationId: string, personIds?: string[]): Promise<Map<string, FitEvent[]>> {
@@ -112,4 +114,41 @@ export async function personOversight(organizationId: string, personId: string, 
     clearances,
     reminders: reminders.map(x => ({ id: x.id, dueItem: x.dueItem, dueOn: x.dueOn, step: x.step, recipient: x.recipient, kind: x.kind, trigger: x.trigger, sentAt: x.sentAt, error: x.error, createdAt: x.createdAt }))
   }
+}
+
+type Tx = Parameters<Parameters<Database['transaction']>[0]>[0]
+
+/**
+ * A new wearer account is linked to the roster entry with the same e-mail, when exactly one
+ * unlinked entry of the organization has it. Audited like a manual link.
+ */
+export async function linkWearerByEmail(tx: Tx, caller: Caller, user: { id: string, email: string, role: string }) {
+  if (user.role !== 'wearer') return null
+  const p = schema.people
+  const matches = await tx.select({ id: p.id }).from(p)
+    .where(and(eq(p.organizationId, caller.organizationId), sql`lower(${p.email}) = ${user.email.toLowerCase()}`, isNull(p.userId)))
+  if (matches.length !== 1) return null
+  await tx.update(p).set({ userId: user.id }).where(eq(p.id, matches[0]!.id))
+  await writeAudit(tx, caller, { entityType: 'person', entityId: matches[0]!.id, action: 'account-linked', after: { userId: user.id, email: user.email, by: 'matching e-mail' } })
+  return matches[0]!.id
+}
+
+/**
+ * The clearance check at the start of a test: a current record covering the respirator's class
+ * on the test day — 29 CFR 1910.134(e)(1). Without one, the program setting decides: flag the
+ * result (default), require the tester's reason, or refuse. What was found is kept on the record.
+ */
+export async function clearanceAtStartFor(organization: { id: string, settings: { clearanceAtStart?: 'flag' | 'require-reason' | 'refuse' } }, personId: string, respiratorClass: string, onDay: string, reason: string | null | undefined) {
+  const records = (await loadClearances(organization.id, [personId])).get(personId) ?? []
+  const covering = coveringClearance(records, respiratorClass, onDay)
+  if (covering) return { onFile: true, clearanceId: covering.id, validUntil: covering.validUntil, reason: null }
+  const policy = organization.settings.clearanceAtStart ?? 'flag'
+  const label = RESPIRATOR_CLASSES.find(c => c.key === respiratorClass)?.label.toLowerCase() ?? respiratorClass
+  if (policy === 'refuse') {
+    throw httpError(409, `No current medical clearance covers a ${label} for this person. Record the clearance first — 29 CFR 1910.134(e)(1).`, { fieldErrors: { clearanceReason: 'No current medical clearance for this respirator class.' } })
+  }
+  if (policy === 'require-reason' && !reason?.trim()) {
+    throw httpError(400, `No current medical clearance covers a ${label} for this person. Say why the test goes ahead, or record the clearance first.`, { fieldErrors: { clearanceReason: 'Say why the test goes ahead without a current clearance.' } })
+  }
+  return { onFile: false, clearanceId: null, validUntil: null, reason: reason?.trim() || null }
 }

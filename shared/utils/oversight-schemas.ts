@@ -5,7 +5,7 @@ const classKeys = RESPIRATOR_CLASSES.map(c => c.key) as [string, ...string[]]
 // NUL and other control characters are refused in every free-text field.
 const plainText = (max: number, label: string) => z.string({ error: `${label}: enter text.` }).trim()
   .max(max, { error: `${label}: use at most ${max} characters.` })
-  .refine(v => !/[\u0000-\u0008\u000B\u000C\u000E-\u001F]/.test(v), { error: `${label}: remove the control characters.` })
+  .refine(v => ![...v].some(ch => ch.charCodeAt(0) < 32 && ch !== '\n' && ch !== '\r' && ch !== '\t'), { error: `${label}: remove the control characters.` })
 const isoDay = (label: string) => z.iso.date({ error: `${label}: give the date as YYYY-MM-DD.` })
 
 /** A medical clearance on file. No diagnosis or medical detail: the form and the page say so. */

@@ -33,7 +33,8 @@ export type PersonInput = z.input<typeof personSchema>
  */
 export const updatePersonSchema = personSchema.partial().extend({
   medicalClearanceStatus: z.enum(statuses, { error: `Medical clearance is one of: ${statuses.join(', ')}.` }).optional(),
-  active: z.boolean().optional()
+  active: z.boolean({ error: 'Choose active or not.' }).optional(),
+  reminderOptOut: z.boolean({ error: 'Choose whether this person gets reminder e-mail.' }).optional()
 })
 
 export const PERSON_STATUSES = ['current', 'due-soon', 'overdue', 'failed', 'never-tested'] as const
