@@ -3,6 +3,7 @@ import { DEMO_ORGANIZATIONS, DEMO_PASSWORD, demoEmail } from './demo-accounts.mj
 import type { SeedDb } from './db'
 import { schema } from './db'
 import { seedFitTests } from './fit-tests'
+import { seedOversight } from './oversight'
 import { hashPassword } from './hash'
 import { seedEquipment } from './equipment'
 
@@ -39,5 +40,6 @@ export async function seedDemo(db: SeedDb, onProgress: (text: string) => void = 
   }
   await seedEquipment(db, seeded)
   await seedFitTests(db, seeded, onProgress)
+  await seedOversight(db, seeded)
   return seeded
 }

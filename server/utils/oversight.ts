@@ -105,7 +105,7 @@ export async function personOversight(organizationId: string, personId: string, 
   const [standingFor, clearances, reminders] = await Promise.all([
     loadStandings(organizationId, today, [personId]),
     db.select().from(c).where(and(eq(c.organizationId, organizationId), eq(c.personId, personId))).orderBy(desc(c.clearedOn)),
-    db.select().from(r).where(and(eq(r.organizationId, organizationId), eq(r.personId, personId))).orderBy(desc(r.createdAt)).limit(100)
+    db.select().from(r).where(and(eq(r.organizationId, organizationId), eq(r.personId, personId), eq(r.kind, 'wearer'))).orderBy(desc(r.createdAt)).limit(100)
   ])
   const standing = standingFor(personId)
   return {

@@ -1,4 +1,4 @@
-import { and, eq, inArray } from 'drizzle-orm'
+import { and, eq, inArray, sql } from 'drizzle-orm'
 import { reminderSettingsOf, reminderStep } from '#shared/utils/oversight'
 import { DUE_REASON_LABELS } from '#shared/utils/oversight-schemas'
 import type { DueListQuery } from '#shared/utils/oversight-schemas'
@@ -27,7 +27,7 @@ export async function dueList(organizationId: string, today: string, q: DueListQ
     loadStandings(organizationId, today),
     listSites(organizationId),
     useDb().select({ personId: schema.reminderLog.personId, sentAt: schema.reminderLog.sentAt }).from(schema.reminderLog)
-      .where(eq(schema.reminderLog.organizationId, organizationId))
+      .where(and(eq(schema.reminderLog.organizationId, organizationId), eq(schema.reminderLog.kind, 'wearer')))
   ])
   const siteNames = new Map(sites.map(s => [s.id, s.name]))
   const last = new Map<string, Date>()
@@ -81,61 +81,69 @@ export function digestMessage(organizationName: string, siteName: string, rows: 
 }
 
 type LogInsert = typeof schema.reminderLog.$inferInsert
+/** Recipient of the log rows that only mark a step as news for the site digest; never mailed. */
+export const DIGEST_MARKER = 'site-digest'
+type Db = Database | Parameters<Parameters<Database['transaction']>[0]>[0]
 
 /**
  * Claims a log row, then sends. A scheduled step that another instance already claimed conflicts
  * on the unique index and is skipped, so each step for each due date goes out once.
  */
-async function claimAndSend(row: LogInsert, mail: { to: string, subject: string, text: string }) {
-  const [claimed] = await useDb().insert(schema.reminderLog).values(row).onConflictDoNothing().returning({ id: schema.reminderLog.id })
+async function claimAndSend(db: Db, row: LogInsert, mail: { to: string, subject: string, text: string } | null) {
+  const [claimed] = await db.insert(schema.reminderLog).values(row).onConflictDoNothing().returning({ id: schema.reminderLog.id })
   if (!claimed) return false
+  if (!mail) return true
   try {
     await sendMail({ organizationId: row.organizationId, ...mail })
-    await useDb().update(schema.reminderLog).set({ sentAt: new Date() }).where(eq(schema.reminderLog.id, claimed.id))
+    await db.update(schema.reminderLog).set({ sentAt: new Date() }).where(eq(schema.reminderLog.id, claimed.id))
   } catch (error) {
-    await useDb().update(schema.reminderLog).set({ error: String((error as Error).message ?? error).slice(0, 500) }).where(eq(schema.reminderLog.id, claimed.id))
+    await db.update(schema.reminderLog).set({ error: String((error as Error).message ?? error).slice(0, 500) }).where(eq(schema.reminderLog.id, claimed.id))
   }
   return true
 }
 
-/** The daily run for one organization: each wearer's due steps, then one digest per site and recipient. */
+/**
+ * The daily run for one organization: each wearer's due steps, then one digest per site and
+ * recipient listing the steps reached today (opted-out people included). Runs under a
+ * transaction-level advisory lock per organization, so a second instance waits and then finds
+ * every step already claimed; the unique indexes are the second guard.
+ */
 export async function runScheduledReminders(organizationId: string, today: string) {
   const org = await findOrganization(organizationId)
   const settings = reminderSettingsOf(org.settings.reminders)
   if (!settings.enabled) return { wearerMails: 0, digests: 0 }
-  const rows = await dueList(organizationId, today)
-  let wearerMails = 0
-  const sitesWithNews = new Map<string, DueRow[]>()
-  for (const row of rows) {
-    const stepped = row.items.map(i => ({ item: i, step: i.dueOn ? reminderStep(i.dueOn, today, settings) : null })).filter(x => x.step)
-    if (!stepped.length) continue
-    sitesWithNews.set(row.siteId ?? '', [...(sitesWithNews.get(row.siteId ?? '') ?? []), row])
-    if (row.reminderOptOut || !row.email) continue
-    for (const { item, step } of stepped) {
-      const sent = await claimAndSend(
-        { organizationId, personId: row.personId, dueItem: item.dueItem, dueOn: item.dueOn!, step: step!, recipient: row.email, kind: 'wearer', trigger: 'scheduled' },
-        { to: row.email, ...wearerMessage(row, org.name, [item]) }
-      )
-      if (sent) wearerMails++
+  return useDb().transaction(async (tx) => {
+    await tx.execute(sql`select pg_advisory_xact_lock(hashtext(${`sealwright-reminders:${organizationId}`}))`)
+    const rows = await dueList(organizationId, today)
+    let wearerMails = 0
+    const news = new Map<string, DueRow[]>()
+    for (const row of rows) {
+      const stepped = row.items.map(i => ({ item: i, step: i.dueOn ? reminderStep(i.dueOn, today, settings) : null })).filter(x => x.step)
+      let fresh = false
+      for (const { item, step } of stepped) {
+        const base = { organizationId, personId: row.personId, dueItem: item.dueItem, dueOn: item.dueOn!, step: step!, trigger: 'scheduled' as const }
+        // The digest marker: this step is news for the site's digest once, mailed or not.
+        if (await claimAndSend(tx, { ...base, recipient: DIGEST_MARKER, kind: 'digest' }, null)) fresh = true
+        if (row.reminderOptOut || !row.email) continue
+        if (await claimAndSend(tx, { ...base, recipient: row.email, kind: 'wearer' }, { to: row.email, ...wearerMessage(row, org.name, [item]) })) wearerMails++
+      }
+      if (fresh) news.set(row.siteId ?? '', [...(news.get(row.siteId ?? '') ?? []), row])
     }
-  }
-  let digests = 0
-  if (settings.digestRoles.length && sitesWithNews.size) {
-    const u = schema.users
-    const recipients = await useDb().select({ email: u.email }).from(u)
-      .where(and(eq(u.organizationId, organizationId), eq(u.active, true), inArray(u.role, settings.digestRoles)))
-    for (const [siteId, siteRows] of sitesWithNews) {
-      const siteName = siteRows[0]?.siteName ?? 'no site'
-      for (const { email } of recipients) {
-        const sent = await claimAndSend(
-          { organizationId, personId: null, dueItem: `digest:${siteId || 'none'}`, dueOn: today, step: 'digest', recipient: email, kind: 'digest', trigger: 'scheduled' },
-          { to: email, ...digestMessage(org.name, siteName, siteRows) }
-        )
-        if (sent) digests++
+    let digests = 0
+    if (settings.digestRoles.length && news.size) {
+      const u = schema.users
+      const recipients = await tx.select({ email: u.email }).from(u)
+        .where(and(eq(u.organizationId, organizationId), eq(u.active, true), inArray(u.role, settings.digestRoles)))
+      for (const [siteId, siteRows] of news) {
+        const siteName = siteRows[0]?.siteName ?? 'no site'
+        for (const { email } of recipients) {
+          const row = { organizationId, personId: null, dueItem: `digest:${siteId || 'none'}`, dueOn: today, step: 'digest', recipient: email, kind: 'digest' as const, trigger: 'scheduled' as const }
+          if (await claimAndSend(tx, row, { to: email, ...digestMessage(org.name, siteName, siteRows) })) digests++
+        }
       }
     }
-  }
-  return { wearerMails, digests }
+    return { wearerMails, digests }
+  })
 }
 
 /** "Remind now": one message per chosen person with everything due, logged as manual. Opted-out people are skipped and named. */
@@ -156,7 +164,7 @@ export async function remindNow(caller: Caller, personIds: string[], today: stri
   for (const r of results) {
     if (r.skipped || !r.message || !r.to) continue
     const item = r.items[0]!
-    await claimAndSend({ organizationId: caller.organizationId, personId: r.personId, dueItem: item.dueItem, dueOn: item.dueOn ?? today, step: 'manual', recipient: r.to, kind: 'wearer', trigger: 'manual', sentByUserId: caller.id }, { to: r.to, ...r.message })
+    await claimAndSend(useDb(), { organizationId: caller.organizationId, personId: r.personId, dueItem: item.dueItem, dueOn: item.dueOn ?? today, step: 'manual', recipient: r.to, kind: 'wearer', trigger: 'manual', sentByUserId: caller.id }, { to: r.to, ...r.message })
     sent++
   }
   return { sent, results }

@@ -1,11 +1,12 @@
 import { and, eq } from 'drizzle-orm'
 import { z } from 'zod'
 import { blankExerciseEntries, localDate } from '#shared/utils/fit-test-evaluate'
+import { createFitTestSchema } from '#shared/utils/fit-test-schemas'
 import { idParamSchema } from '#shared/utils/user-schemas'
 
 const retestSchema = z.object({
   idempotencyKey: z.string({ error: 'The idempotency key is missing.' }).min(8, { error: 'The idempotency key is too short.' }).max(100),
-  clearanceReason: z.string().trim().max(500, { error: 'Use at most 500 characters.' }).optional()
+  clearanceReason: createFitTestSchema.shape.clearanceReason
 })
 
 /** Opens a new draft for the same person, respirator, size, protocol, site and counter, linked to the failed record. */
