@@ -149,7 +149,7 @@ describe('medical clearance records', () => {
   it('imports clearances from rows, idempotently, with row-level errors', async () => {
     const person = await addPerson()
     const rows = [
-      { employeeNumber: person.employeeNumber, clearedOn: '2026-02-01', validUntil: '2027-02-01', clearedBy: 'Invented Clinic', respiratorClasses: 'elastomeric-half-mask; Elastomeric full facepiece' },
+      { employeeNumber: person.employeeNumber, clearedOn: '2026-02-01', validUntil: '2027-02-01', clearedBy: 'Invented Clinic', respiratorClasses: 'elastomeric-half-mask; Elastomeric full facepiece (air-purifying)' },
       { employeeNumber: 'NOBODY-1', clearedOn: '2026-02-01', clearedBy: 'Invented Clinic', respiratorClasses: 'elastomeric-half-mask' },
       { employeeNumber: person.employeeNumber, clearedOn: '2026-02-01', clearedBy: 'Invented Clinic', respiratorClasses: 'space suit' }
     ]
