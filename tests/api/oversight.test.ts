@@ -306,7 +306,7 @@ describe('reminders', () => {
     expect(due.body.rows.find((r: any) => r.personId === optedOut.id)).toMatchObject({ reminderOptOut: true })
     // One digest per tester for the site, once.
     expect(await mailsTo(own.users.tester.email)).toHaveLength(1)
-    expect((await mailsTo(own.users.tester.email))[0]!.text).toMatch(/Invented Overdue[\s\S]*Invented Quiet — no e-mail reminders/)
+    expect((await mailsTo(own.users.tester.email))[0]!.text).toMatch(/Invented Overdue[\s\S]*Invented Quiet \(No\. [^)]+\) — no e-mail reminders/)
   })
 
   it('"remind now" previews, skips the opted-out, sends, and logs who sent it', async () => {
