@@ -26,6 +26,8 @@ export default defineNuxtConfig({
     databaseUrl: '',
     // Trust X-Forwarded-For only behind a known proxy; it decides which address sign-in throttling counts.
     trustProxy: false,
+    // Start the pg-boss queue that runs the daily reminders (NUXT_REMINDER_QUEUE=false turns it off).
+    reminderQueue: true,
     session: {
       name: 'sealwright-session',
       maxAge: 60 * 60 * 12

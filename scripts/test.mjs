@@ -96,7 +96,9 @@ try {
       SEALWRIGHT_TEST_DATABASE_URL: databaseUrl,
       SEALWRIGHT_TEST_APP_DATABASE_URL: appUrl,
       SEALWRIGHT_TEST_OUTBOX_URL: `http://127.0.0.1:${mailHttpPort}`,
-      SEALWRIGHT_TEST_SESSION_PASSWORD: env.NUXT_SESSION_PASSWORD
+      SEALWRIGHT_TEST_SESSION_PASSWORD: env.NUXT_SESSION_PASSWORD,
+      // Lets a test start a second app instance on the same database and mail catcher.
+      SEALWRIGHT_TEST_APP_ENV: JSON.stringify(env)
     }
   }) === 0)
 

@@ -12,6 +12,7 @@ export const NAV_ITEMS: NavItem[] = [
   { to: '/', label: 'Overview', roles: [] },
   { to: '/fit-tests', label: 'Fit tests', roles: ['tester', 'reviewer', 'trainer'] },
   { to: '/people', label: 'People', roles: ['tester', 'reviewer', 'trainer'] },
+  { to: '/due', label: 'Due list', roles: ['tester', 'reviewer', 'trainer'] },
   { to: '/fit-tests', label: 'My fit tests', roles: ['wearer'] },
   { to: '/insights', label: 'Insights', roles: ['reviewer', 'tester'] },
   { to: '/reviews', label: 'Review queue', roles: ['reviewer'] },

@@ -10,6 +10,7 @@ function conditions(organizationId: string, q: Omit<ListFitTestsQuery, 'page' | 
     eq(t.organizationId, organizationId),
     // One line per record: superseded revisions and open corrections stay on the record's own page.
     ne(t.status, 'superseded'),
+    ne(t.status, 'discarded'),
     or(ne(t.status, 'draft'), eq(t.revision, 1))
   ]
   if (onlyPersonUserId) where.push(eq(p.userId, onlyPersonUserId))

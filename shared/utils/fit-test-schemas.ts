@@ -88,7 +88,10 @@ export const createFitTestSchema = z.object({
   performedAt: isoInstant.optional(),
   preTest: preTestSchema.default({ medicalClearanceCurrent: false, nothingCrossingSeal: false, userSealCheckDone: false, comfortAcceptable: false }),
   entry: fitTestEntrySchema.optional(),
-  seriesText: z.string().max(2_000_000, { error: 'The series is larger than 2 MB; split it or use a 1 Hz export.' }).nullable().optional()
+  seriesText: z.string().max(2_000_000, { error: 'The series is larger than 2 MB; split it or use a 1 Hz export.' }).nullable().optional(),
+  /** Why the test goes ahead without a current medical clearance covering this respirator class. */
+  clearanceReason: z.string({ error: 'Write the reason as text.' }).trim().max(500, { error: 'Use at most 500 characters.' })
+    .refine(v => ![...v].some(ch => ch.charCodeAt(0) < 32 && ch !== '\n'), { error: 'Remove the control characters.' }).optional()
 }).refine(v => v.kind === 'qualitative' || v.counterId !== null, { error: 'Choose the counter used.', path: ['counterId'] })
 export type CreateFitTest = z.input<typeof createFitTestSchema>
 

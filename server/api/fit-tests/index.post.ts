@@ -1,6 +1,6 @@
 import { and, eq } from 'drizzle-orm'
 import { createFitTestSchema } from '#shared/utils/fit-test-schemas'
-import { blankExerciseEntries } from '#shared/utils/fit-test-evaluate'
+import { blankExerciseEntries, localDate } from '#shared/utils/fit-test-evaluate'
 
 export default defineEventHandler(async (event) => {
   const caller = await requireRole(event, 'tester')
@@ -13,6 +13,8 @@ export default defineEventHandler(async (event) => {
   await assertMaskUnitChoice(caller.organizationId, input)
   const protocol = protocolFor(input.protocolKey, input.kind)
   const org = await findOrganization(caller.organizationId)
+  const performedAt = input.performedAt ? new Date(input.performedAt) : new Date()
+  const clearanceAtStart = await clearanceAtStartFor(org, refs.person.id, refs.model.respiratorClass, localDate(performedAt, refs.site.timeZone), input.clearanceReason)
   const draft = {
     organizationId: caller.organizationId,
     recordId: crypto.randomUUID(),
@@ -31,7 +33,8 @@ export default defineEventHandler(async (event) => {
     protocolKey: input.protocolKey,
     protocol,
     sampleFlowCm3PerMin: refs.counter?.sampleFlowCm3PerMin ?? null,
-    performedAt: input.performedAt ? new Date(input.performedAt) : new Date(),
+    performedAt,
+    clearanceAtStart,
     preTest: input.preTest,
     entry: input.entry ?? { mode: input.kind === 'qualitative' ? 'qualitative' as const : 'grid' as const, exercises: protocol ? blankExerciseEntries(protocol) : [], wholeTestAmbient: null, seriesOffsetSeconds: 0, qualitative: null },
     seriesText: input.seriesText ?? null

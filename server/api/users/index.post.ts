@@ -11,6 +11,7 @@ export default defineEventHandler(async (event) => {
   const user = await useDb().transaction(async (tx) => {
     const [created] = await tx.insert(schema.users).values({ ...input, organizationId: caller.organizationId }).returning()
     await writeAudit(tx, caller, { entityType: 'user', entityId: created!.id, action: 'created', after: { email: input.email, displayName: input.displayName, role: input.role } })
+    await linkWearerByEmail(tx, caller, created!)
     return created!
   })
   const org = await findOrganization(caller.organizationId)

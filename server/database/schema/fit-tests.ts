@@ -10,7 +10,16 @@ import { people } from './people'
 import { respiratorModels } from './respirators'
 import { users } from './users'
 
-export const FIT_TEST_STATUSES = ['draft', 'finished', 'superseded', 'withdrawn'] as const
+export const FIT_TEST_STATUSES = ['draft', 'finished', 'superseded', 'withdrawn', 'discarded'] as const
+
+/** What the start of a test found about medical clearance, kept on the record and shown with the result. */
+export interface ClearanceAtStart {
+  onFile: boolean
+  clearanceId: string | null
+  validUntil: string | null
+  /** Why the tester went ahead without a current clearance covering this respirator class. */
+  reason: string | null
+}
 
 /**
  * One revision of a fit-test record. All revisions of a record share `recordId`; a finished
@@ -63,6 +72,11 @@ export const fitTests = pgTable('fit_tests', {
   finishedAt: timestamp({ withTimezone: true }),
   finishedByUserId: uuid().references(() => users.id, { onDelete: 'restrict' }),
   withdrawnReason: text(),
+  /** A draft started by mistake is discarded with a reason (audited), never deleted. */
+  discardedReason: text(),
+  /** The failed record this test retests. */
+  retestOfRecordId: uuid(),
+  clearanceAtStart: jsonb().$type<ClearanceAtStart>(),
   ...timestamps
 }, table => [
   index('fit_tests_organization_performed_idx').on(table.organizationId, table.performedAt),

@@ -1,6 +1,7 @@
 import { relations } from 'drizzle-orm'
 import { index, jsonb, pgTable, text, uniqueIndex, uuid } from 'drizzle-orm/pg-core'
 import type { PassLevelOverrides } from '../../../shared/utils/compute'
+import type { ReminderSettings } from '../../../shared/utils/oversight'
 import { id, timestamps } from './columns'
 
 export interface OrganizationSettings {
@@ -10,6 +11,10 @@ export interface OrganizationSettings {
   uncoveredResults?: 'flag' | 'refuse'
   /** Pass levels raised above the rule set (never lower), as the computation module reads them. */
   passLevelOverrides?: PassLevelOverrides
+  /** Reminder e-mail: lead time, repeat interval once overdue, which roles get site digests. */
+  reminders?: Partial<ReminderSettings>
+  /** A test started with no current medical clearance covering the respirator class. */
+  clearanceAtStart?: 'flag' | 'require-reason' | 'refuse'
 }
 
 export const organizations = pgTable('organizations', {
