@@ -1,5 +1,7 @@
 import { z } from 'zod'
 import { BUILT_IN_PROTOCOLS } from './compute'
+import { DECIMAL_MARKS } from './number-reader'
+import type { DecimalMark } from './number-reader'
 
 /**
  * Items checked before a fit test starts. Any one not met blocks the test:
@@ -60,6 +62,11 @@ export const fitTestEntrySchema = z.object({
   wholeTestAmbient: z.object({ start: concentration, end: concentration }).nullable().default(null),
   /** Seconds to shift a pasted series so its first reading lines up with the protocol's start. */
   seriesOffsetSeconds: z.number().min(-3600).max(3600).default(0),
+  /**
+   * The decimal mark a pasted series is read with, kept with the record so it recomputes the same
+   * after the organization changes its setting. Absent on older records: point.
+   */
+  decimalMark: z.enum(DECIMAL_MARKS as [DecimalMark, ...DecimalMark[]], { error: 'Choose a point or a comma as the decimal mark.' }).optional(),
   qualitative: z.object({
     agent: z.enum(Object.keys(QUALITATIVE_AGENTS) as [QualitativeAgent, ...QualitativeAgent[]], { error: 'Choose the test agent.' }),
     result: z.enum(['pass', 'fail'], { error: 'Choose pass or fail.' })

@@ -1,6 +1,7 @@
 import { relations } from 'drizzle-orm'
 import { index, jsonb, pgTable, text, uniqueIndex, uuid } from 'drizzle-orm/pg-core'
 import type { PassLevelOverrides } from '../../../shared/utils/compute'
+import type { DecimalMark } from '../../../shared/utils/number-reader'
 import { id, timestamps } from './columns'
 
 export interface OrganizationSettings {
@@ -10,6 +11,8 @@ export interface OrganizationSettings {
   uncoveredResults?: 'flag' | 'refuse'
   /** Pass levels raised above the rule set (never lower), as the computation module reads them. */
   passLevelOverrides?: PassLevelOverrides
+  /** How people here write a decimal: point (default) or comma; the other mark only groups thousands. */
+  decimalMark?: DecimalMark
 }
 
 export const organizations = pgTable('organizations', {
