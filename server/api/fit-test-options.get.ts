@@ -1,5 +1,4 @@
 import { and, asc, eq } from 'drizzle-orm'
-import { BUILT_IN_PROTOCOLS } from '#shared/utils/compute'
 import { retestIntervalMonths } from '#shared/utils/fit-test-evaluate'
 
 /** What the new-test form offers: the roster, catalogue, counters, sites, protocols and rules. */
@@ -20,6 +19,6 @@ export default defineEventHandler(async (event) => {
     respiratorModels: models.map(m => ({ id: m.id, make: m.make, model: m.model, respiratorClass: m.respiratorClass, sizes: m.sizes })),
     counters: counters.map(c => ({ id: c.id, serialNumber: c.serialNumber, description: c.description, sampleFlowCm3PerMin: c.sampleFlowCm3PerMin, calibrationDueOn: c.calibrationDueOn, siteId: c.siteId })),
     people,
-    protocols: BUILT_IN_PROTOCOLS
+    protocols: protocolsOffered(org)
   }
 })

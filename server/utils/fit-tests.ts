@@ -67,9 +67,9 @@ export async function resolveReferences(organizationId: string, input: { personI
   return { person: person!, model: model!, site: site!, counter: counter ?? null }
 }
 
-export function protocolFor(protocolKey: string, kind: 'quantitative' | 'qualitative'): Protocol | null {
+export function protocolFor(protocolKey: string, kind: 'quantitative' | 'qualitative', org?: Pick<Organization, 'settings'>): Protocol | null {
   if (kind === 'qualitative') return null
-  const protocol = findBuiltInProtocol(protocolKey)
+  const protocol = org ? findOfferedProtocol(org, protocolKey) : findBuiltInProtocol(protocolKey)
   if (!protocol) {
     throw httpError(400, 'Choose a quantitative protocol for a quantitative test.', { fieldErrors: { protocolKey: 'Choose a quantitative protocol.' } })
   }

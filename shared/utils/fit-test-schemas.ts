@@ -1,5 +1,4 @@
 import { z } from 'zod'
-import { BUILT_IN_PROTOCOLS } from './compute'
 import { DECIMAL_MARKS } from './number-reader'
 import type { DecimalMark } from './number-reader'
 
@@ -74,7 +73,6 @@ export const fitTestEntrySchema = z.object({
 })
 export type FitTestEntry = z.infer<typeof fitTestEntrySchema>
 
-const protocolKeys = BUILT_IN_PROTOCOLS.map(p => p.key) as [string, ...string[]]
 export const QUALITATIVE_PROTOCOL_KEY = 'qualitative-app-a'
 
 const isoInstant = z.iso.datetime({ offset: true, error: 'Give the test time as a date and time.' })
@@ -85,7 +83,8 @@ export const createFitTestSchema = z.object({
   personId: z.uuid({ error: 'Choose the person being tested.' }),
   respiratorModelId: z.uuid({ error: 'Choose the respirator model.' }),
   respiratorSize: z.string({ error: 'Choose the size.' }).trim().min(1, { error: 'Choose the size.' }).max(40),
-  protocolKey: z.enum([...protocolKeys, QUALITATIVE_PROTOCOL_KEY] as [string, ...string[]], { error: 'Choose a protocol.' }),
+  // A built-in protocol, the qualitative one, or one of the organization's own (the route looks it up).
+  protocolKey: z.string({ error: 'Choose a protocol.' }).trim().min(1, { error: 'Choose a protocol.' }).max(80, { error: 'Choose a protocol.' }),
   counterId: z.uuid({ error: 'Choose the counter used.' }).nullable().default(null),
   siteId: z.uuid({ error: 'Choose the site.' }),
   performedAt: isoInstant.optional(),

@@ -10,8 +10,8 @@ export default defineEventHandler(async (event) => {
   if (existing[0]) return fitTestView(caller, await findFitTest(caller.organizationId, existing[0].id))
 
   const refs = await resolveReferences(caller.organizationId, input)
-  const protocol = protocolFor(input.protocolKey, input.kind)
   const org = await findOrganization(caller.organizationId)
+  const protocol = protocolFor(input.protocolKey, input.kind, org)
   const draft = {
     organizationId: caller.organizationId,
     recordId: crypto.randomUUID(),

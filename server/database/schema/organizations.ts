@@ -1,6 +1,6 @@
 import { relations } from 'drizzle-orm'
 import { index, jsonb, pgTable, text, uniqueIndex, uuid } from 'drizzle-orm/pg-core'
-import type { PassLevelOverrides } from '../../../shared/utils/compute'
+import type { PassLevelOverrides, Protocol } from '../../../shared/utils/compute'
 import type { DecimalMark } from '../../../shared/utils/number-reader'
 import { id, timestamps } from './columns'
 
@@ -13,6 +13,8 @@ export interface OrganizationSettings {
   passLevelOverrides?: PassLevelOverrides
   /** How people here write a decimal: point (default) or comma; the other mark only groups thousands. */
   decimalMark?: DecimalMark
+  /** Protocols an admin added, checked with the computation module's protocol schema. */
+  customProtocols?: Protocol[]
 }
 
 export const organizations = pgTable('organizations', {
