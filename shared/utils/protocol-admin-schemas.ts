@@ -11,7 +11,15 @@ export const MAX_EXERCISE_SECONDS = 1800
  * keys and names, whole seconds, sampling that fits, ambient samples where the plan needs them),
  * plus limits of a real test session and a key that no built-in protocol uses.
  */
+// Control characters (NUL among them) have no place in a name and cannot be stored.
+const CONTROL = { test: (text: string) => [...text].some(c => c.charCodeAt(0) < 32 || c.charCodeAt(0) === 127) }
+
 export const customProtocolSchema = protocolSchema.superRefine((p, ctx) => {
+  if (CONTROL.test(p.name)) ctx.addIssue({ code: 'custom', path: ['name'], message: 'Use letters, digits, spaces and punctuation only in the name' })
+  if (CONTROL.test(p.source)) ctx.addIssue({ code: 'custom', path: ['source'], message: 'Use letters, digits, spaces and punctuation only in the source' })
+  p.exercises.forEach((e, i) => {
+    if (CONTROL.test(e.name)) ctx.addIssue({ code: 'custom', path: ['exercises', i, 'name'], message: 'Use letters, digits, spaces and punctuation only in the exercise name' })
+  })
   if (BUILT_IN_PROTOCOLS.some(b => b.key === p.key)) {
     ctx.addIssue({ code: 'custom', path: ['key'], message: `'${p.key}' is the key of a built-in protocol; choose another` })
   }
