@@ -24,6 +24,8 @@ export const NAV_ITEMS: NavItem[] = [
   { to: '/equipment/templates', label: 'Check templates', roles: ['tester', 'reviewer', 'trainer'] },
   { to: '/lab', label: 'Training lab', roles: ['trainer', 'tester'] },
   { to: '/admin/catalogue', label: 'Catalogue', roles: ['admin'] },
+  { to: '/admin/pass-levels', label: 'Pass levels', roles: ['admin'] },
+  { to: '/admin/protocols', label: 'Protocols', roles: ['admin'] },
   { to: '/admin/users', label: 'Users', roles: ['admin'] },
   { to: '/admin/outbox', label: 'Outbox', roles: ['admin'] },
   { to: '/admin/settings', label: 'Settings', roles: ['admin'] }

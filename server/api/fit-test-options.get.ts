@@ -1,5 +1,4 @@
 import { and, asc, eq, ne } from 'drizzle-orm'
-import { BUILT_IN_PROTOCOLS } from '#shared/utils/compute'
 import { retestIntervalMonths } from '#shared/utils/fit-test-evaluate'
 
 /** What the new-test form offers: the roster, catalogue, counters, sites, protocols and rules. */
@@ -25,6 +24,6 @@ export default defineEventHandler(async (event) => {
     people,
     maskUnits: units,
     trackedModelIds: [...new Set((await db.select({ id: schema.maskUnits.respiratorModelId }).from(schema.maskUnits).where(eq(schema.maskUnits.organizationId, caller.organizationId))).map(r => r.id))],
-    protocols: BUILT_IN_PROTOCOLS
+    protocols: protocolsOffered(org)
   }
 })

@@ -79,8 +79,15 @@ export async function listFitTests(organizationId: string, q: ListFitTestsQuery,
   return { rows: rows.map(r => ({ ...r, coverage: coverage.get(r.id) ?? null })), total: total?.n ?? 0, page: q.page, pageSize: q.pageSize }
 }
 
+/** The list's rows with the raw inputs the export recomputes each exercise from. */
 export async function exportFitTests(organizationId: string, q: ListFitTestsQuery) {
-  const rows = await baseQuery().where(conditions(organizationId, q)).orderBy(desc(t.performedAt)).limit(50_000)
+  const rows = await useDb().select({ ...columns, protocol: t.protocol, entry: t.entry, seriesText: t.seriesText, sampleFlowCm3PerMin: t.sampleFlowCm3PerMin })
+    .from(t)
+    .innerJoin(p, eq(p.id, t.personId))
+    .innerJoin(schema.sites, eq(schema.sites.id, t.siteId))
+    .innerJoin(schema.users, eq(schema.users.id, t.testerUserId))
+    .leftJoin(schema.counters, eq(schema.counters.id, t.counterId))
+    .where(conditions(organizationId, q)).orderBy(desc(t.performedAt)).limit(50_000)
   const coverage = await findCoverageMany(organizationId, rows)
   return rows.map(r => ({ ...r, coverage: coverage.get(r.id) ?? null }))
 }

@@ -30,14 +30,17 @@ export function passLevelFor(org: Organization, respiratorClass: string) {
  * The server's own result for a revision, recomputed from the raw inputs only: nothing the client
  * computed is ever read. Qualitative tests carry the recorded pass or fail.
  */
-export function computeStoredResult(row: Pick<FitTestRow, 'kind' | 'protocol' | 'entry' | 'seriesText' | 'sampleFlowCm3PerMin' | 'respiratorClass' | 'performedAt'>, org: Organization, timeZone: string) {
+export function computeStoredResult(row: Pick<FitTestRow, 'kind' | 'protocol' | 'entry' | 'seriesText' | 'sampleFlowCm3PerMin' | 'respiratorClass' | 'performedAt'> & Partial<Pick<FitTestRow, 'status' | 'passLevel'>>, org: Organization, timeZone: string) {
+  // A finished record keeps the pass level it was finished against: a level raised or lowered
+  // later never changes the verdict of a record already issued.
+  const keptLevel = row.status && row.status !== 'draft' && row.passLevel !== null && row.passLevel !== undefined ? row.passLevel : null
   return storedFieldsOf({
     kind: row.kind,
     protocol: row.protocol as Protocol | null,
     entry: row.entry,
     seriesText: row.seriesText,
     sampleFlowCm3PerMin: row.sampleFlowCm3PerMin,
-    passLevel: row.kind === 'qualitative' ? null : passLevelFor(org, row.respiratorClass).level,
+    passLevel: row.kind === 'qualitative' ? null : keptLevel ?? passLevelFor(org, row.respiratorClass).level,
     testedOn: localDate(row.performedAt, timeZone),
     retestMonths: retestIntervalMonths(org.settings.retestIntervalMonths)
   })
@@ -64,9 +67,9 @@ export async function resolveReferences(organizationId: string, input: { personI
   return { person: person!, model: model!, site: site!, counter: counter ?? null }
 }
 
-export function protocolFor(protocolKey: string, kind: 'quantitative' | 'qualitative'): Protocol | null {
+export function protocolFor(protocolKey: string, kind: 'quantitative' | 'qualitative', org?: Pick<Organization, 'settings'>): Protocol | null {
   if (kind === 'qualitative') return null
-  const protocol = findBuiltInProtocol(protocolKey)
+  const protocol = org ? findOfferedProtocol(org, protocolKey) : findBuiltInProtocol(protocolKey)
   if (!protocol) {
     throw httpError(400, 'Choose a quantitative protocol for a quantitative test.', { fieldErrors: { protocolKey: 'Choose a quantitative protocol.' } })
   }

@@ -1,6 +1,7 @@
 import { z } from 'zod'
-import { BUILT_IN_PROTOCOLS } from './compute'
 import { calendarDate, changesSchema, databaseInteger, pageNumber, pastInstant } from './input-ranges'
+import { DECIMAL_MARKS } from './number-reader'
+import type { DecimalMark } from './number-reader'
 
 /**
  * Items checked before a fit test starts. Any one not met blocks the test:
@@ -62,6 +63,11 @@ export const fitTestEntrySchema = z.object({
   wholeTestAmbient: z.object({ start: concentration, end: concentration }).nullable().default(null),
   /** Seconds to shift a pasted series so its first reading lines up with the protocol's start. */
   seriesOffsetSeconds: z.number().min(-3600).max(3600).default(0),
+  /**
+   * The decimal mark a pasted series is read with, kept with the record so it recomputes the same
+   * after the organization changes its setting. Absent on older records: point.
+   */
+  decimalMark: z.enum(DECIMAL_MARKS as [DecimalMark, ...DecimalMark[]], { error: 'Choose a point or a comma as the decimal mark.' }).optional(),
   qualitative: z.object({
     agent: z.enum(Object.keys(QUALITATIVE_AGENTS) as [QualitativeAgent, ...QualitativeAgent[]], { error: 'Choose the test agent.' }),
     result: z.enum(['pass', 'fail'], { error: 'Choose pass or fail.' })
@@ -69,7 +75,6 @@ export const fitTestEntrySchema = z.object({
 })
 export type FitTestEntry = z.infer<typeof fitTestEntrySchema>
 
-const protocolKeys = BUILT_IN_PROTOCOLS.map(p => p.key) as [string, ...string[]]
 export const QUALITATIVE_PROTOCOL_KEY = 'qualitative-app-a'
 
 const isoInstant = pastInstant('Give the test time as a date and time.')
@@ -80,7 +85,8 @@ export const createFitTestSchema = z.object({
   personId: z.uuid({ error: 'Choose the person being tested.' }),
   respiratorModelId: z.uuid({ error: 'Choose the respirator model.' }),
   respiratorSize: z.string({ error: 'Choose the size.' }).trim().min(1, { error: 'Choose the size.' }).max(40),
-  protocolKey: z.enum([...protocolKeys, QUALITATIVE_PROTOCOL_KEY] as [string, ...string[]], { error: 'Choose a protocol.' }),
+  // A built-in protocol, the qualitative one, or one of the organization's own (the route looks it up).
+  protocolKey: z.string({ error: 'Choose a protocol.' }).trim().min(1, { error: 'Choose a protocol.' }).max(80, { error: 'Choose a protocol.' }),
   counterId: z.uuid({ error: 'Choose the counter used.' }).nullable().default(null),
   /** The serial-numbered unit worn, when the model's units are tracked. */
   maskUnitId: z.uuid({ error: 'Choose the mask unit the wearer wears.' }).nullable().default(null),

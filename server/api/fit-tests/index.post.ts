@@ -11,8 +11,8 @@ export default defineEventHandler(async (event) => {
 
   const refs = await resolveReferences(caller.organizationId, input)
   await assertMaskUnitChoice(caller.organizationId, input)
-  const protocol = protocolFor(input.protocolKey, input.kind)
   const org = await findOrganization(caller.organizationId)
+  const protocol = protocolFor(input.protocolKey, input.kind, org)
   const performedAt = input.performedAt ? new Date(input.performedAt) : new Date()
   const clearanceAtStart = await clearanceAtStartFor(org, refs.person.id, refs.model.respiratorClass, localDate(performedAt, refs.site.timeZone), input.clearanceReason)
   const draft = {

@@ -1,6 +1,7 @@
 import { relations } from 'drizzle-orm'
 import { index, jsonb, pgTable, text, uniqueIndex, uuid } from 'drizzle-orm/pg-core'
-import type { PassLevelOverrides } from '../../../shared/utils/compute'
+import type { PassLevelOverrides, Protocol } from '../../../shared/utils/compute'
+import type { DecimalMark } from '../../../shared/utils/number-reader'
 import type { ReminderSettings } from '../../../shared/utils/oversight'
 import { id, timestamps } from './columns'
 
@@ -15,6 +16,10 @@ export interface OrganizationSettings {
   reminders?: Partial<ReminderSettings>
   /** A test started with no current medical clearance covering the respirator class. */
   clearanceAtStart?: 'flag' | 'require-reason' | 'refuse'
+  /** How people here write a decimal: point (default) or comma; the other mark only groups thousands. */
+  decimalMark?: DecimalMark
+  /** Protocols an admin added, checked with the computation module's protocol schema. */
+  customProtocols?: Protocol[]
 }
 
 export const organizations = pgTable('organizations', {
