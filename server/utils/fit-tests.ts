@@ -134,7 +134,6 @@ export async function listRevisions(organizationId: string, recordId: string) {
     .from(t).where(and(eq(t.organizationId, organizationId), eq(t.recordId, recordId))).orderBy(asc(t.revision))
 }
 
-type Tx = Parameters<Parameters<Database['transaction']>[0]>[0]
 
 /** Gives a finished, passing revision its own card token (once). */
 export async function ensureCard(tx: Tx, organizationId: string, row: Pick<FitTestRow, 'id' | 'recordId'>) {
