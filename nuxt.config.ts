@@ -2,7 +2,7 @@ import { fileURLToPath } from 'node:url'
 
 // Sealwright: Nuxt 4 app with `app/` as srcDir, server routes under `server/`, pure computation in `shared/`.
 export default defineNuxtConfig({
-  modules: ['@nuxtjs/tailwindcss', '@pinia/nuxt', 'nuxt-auth-utils', '@nuxt/eslint'],
+  modules: ['@nuxtjs/tailwindcss', '@pinia/nuxt', 'nuxt-auth-utils', '@nuxt/eslint', 'nuxt-security'],
   devtools: { enabled: false },
   app: {
     head: {
@@ -26,6 +26,8 @@ export default defineNuxtConfig({
     databaseUrl: '',
     // Trust X-Forwarded-For only behind a known proxy; it decides which address sign-in throttling counts.
     trustProxy: false,
+    // Start the pg-boss queue that runs the daily reminders (NUXT_REMINDER_QUEUE=false turns it off).
+    reminderQueue: true,
     session: {
       name: 'sealwright-session',
       maxAge: 60 * 60 * 12
@@ -43,6 +45,8 @@ export default defineNuxtConfig({
   compatibilityDate: '2026-11-01',
   nitro: {
     errorHandler: '~~/server/error-handler.ts',
+    // Lets the database layer know which request sent a statement (see server/utils/db-outcome.ts).
+    experimental: { asyncContext: true },
     // The fit card PDF embeds the same IBM Plex Sans the pages use, shipped with the server.
     serverAssets: [{
       baseName: 'fonts',
@@ -61,6 +65,45 @@ export default defineNuxtConfig({
         braceStyle: '1tbs'
       }
     }
+  },
+  // Response headers and the Content-Security-Policy. Body limits and the cross-site check live in
+  // server/middleware/request-guard.ts (they answer with a sentence); sign-in limits in
+  // server/utils/limiter.ts (shared through PostgreSQL), so the module's own versions are off.
+  security: {
+    nonce: true,
+    headers: {
+      contentSecurityPolicy: {
+        'default-src': ['\'self\''],
+        'base-uri': ['\'none\''],
+        'object-src': ['\'none\''],
+        'frame-ancestors': ['\'none\''],
+        'form-action': ['\'self\''],
+        'script-src': ['\'self\'', '\'nonce-{{nonce}}\'', '\'strict-dynamic\''],
+        'script-src-attr': ['\'none\''],
+        // Vue writes style attributes during rendering; no style is ever built from what a user typed.
+        'style-src': ['\'self\'', '\'unsafe-inline\''],
+        'img-src': ['\'self\'', 'data:', 'blob:'],
+        'font-src': ['\'self\'', 'data:'],
+        'connect-src': ['\'self\''],
+        'worker-src': ['\'self\'', 'blob:'],
+        'frame-src': ['\'self\'', 'blob:'],
+        'upgrade-insecure-requests': false
+      },
+      xFrameOptions: 'DENY',
+      xContentTypeOptions: 'nosniff',
+      referrerPolicy: 'strict-origin-when-cross-origin',
+      crossOriginEmbedderPolicy: false,
+      // Served over plain http on loopback in development; a TLS proxy in front sets HSTS itself.
+      strictTransportSecurity: false,
+      permissionsPolicy: { camera: [], microphone: [], geolocation: [], fullscreen: ['self'] }
+    },
+    hidePoweredBy: true,
+    requestSizeLimiter: false,
+    rateLimiter: false,
+    xssValidator: false,
+    corsHandler: false,
+    allowedMethodsRestricter: false,
+    removeLoggers: false
   },
   tailwindcss: {
     cssPath: '~/assets/css/main.css',

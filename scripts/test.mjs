@@ -56,14 +56,14 @@ let exitCode = 1
 try {
   await ensureDependencies(projectDir)
   const { ensureDatabaseServer, startMailCatcher, startBuiltApp, appEnv } = await import('./lib/services.mjs')
-  const { ensureDatabase, applyMigrations } = await import('./lib/database.mjs')
+  const { prepareDatabase } = await import('./lib/database.mjs')
   const { ensureBuild } = await import('./lib/build.mjs')
 
   const testDbUrl = process.env.NUXT_TEST_DATABASE_URL
   const server = await ensureDatabaseServer(projectDir, { externalUrl: testDbUrl, port: pgPort })
   stops.push(server.stop)
-  const databaseUrl = testDbUrl || await ensureDatabase(server.serverUrl, 'sealwright_test', { recreate: true })
-  await applyMigrations(databaseUrl)
+  // The tests' fixtures write as the owner; the app under test connects as its own role.
+  const { ownerUrl: databaseUrl, appUrl } = await prepareDatabase(server, 'sealwright_test', { recreate: true, passwords: server.passwords, ownerUrl: process.env.SEALWRIGHT_TEST_DATABASE_OWNER_URL })
   // The test database gets the demo scenario too, so the e2e tests can sign in as the demo roles.
   const seeded = await run(bin('tsx'), ['scripts/seed-demo.ts'], { cwd: projectDir, env: { ...process.env, DATABASE_URL: databaseUrl } })
   if (seeded !== 0) throw new Error('Loading the demo scenario into the test database failed.')
@@ -78,7 +78,7 @@ try {
   const mail = await startMailCatcher(projectDir, { smtpPort, httpPort: mailHttpPort, quiet: true })
   stops.push(mail.stop)
   const env = appEnv({
-    databaseUrl,
+    databaseUrl: appUrl,
     sessionPassword: randomBytes(32).toString('hex'),
     port: appPort,
     smtpUrl: `smtp://127.0.0.1:${smtpPort}`,
@@ -94,8 +94,11 @@ try {
       ...process.env,
       SEALWRIGHT_TEST_BASE_URL: `http://127.0.0.1:${appPort}`,
       SEALWRIGHT_TEST_DATABASE_URL: databaseUrl,
+      SEALWRIGHT_TEST_APP_DATABASE_URL: appUrl,
       SEALWRIGHT_TEST_OUTBOX_URL: `http://127.0.0.1:${mailHttpPort}`,
-      SEALWRIGHT_TEST_SESSION_PASSWORD: env.NUXT_SESSION_PASSWORD
+      SEALWRIGHT_TEST_SESSION_PASSWORD: env.NUXT_SESSION_PASSWORD,
+      // Lets a test start a second app instance on the same database and mail catcher.
+      SEALWRIGHT_TEST_APP_ENV: JSON.stringify(env)
     }
   }) === 0)
 

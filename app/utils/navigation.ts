@@ -12,6 +12,7 @@ export const NAV_ITEMS: NavItem[] = [
   { to: '/', label: 'Overview', roles: [] },
   { to: '/fit-tests', label: 'Fit tests', roles: ['tester', 'reviewer', 'trainer'] },
   { to: '/people', label: 'People', roles: ['tester', 'reviewer', 'trainer'] },
+  { to: '/due', label: 'Due list', roles: ['tester', 'reviewer', 'trainer'] },
   { to: '/fit-tests', label: 'My fit tests', roles: ['wearer'] },
   { to: '/insights', label: 'Insights', roles: ['reviewer', 'tester'] },
   { to: '/reviews', label: 'Review queue', roles: ['reviewer'] },
@@ -23,6 +24,8 @@ export const NAV_ITEMS: NavItem[] = [
   { to: '/equipment/templates', label: 'Check templates', roles: ['tester', 'reviewer', 'trainer'] },
   { to: '/lab', label: 'Training lab', roles: ['trainer', 'tester'] },
   { to: '/admin/catalogue', label: 'Catalogue', roles: ['admin'] },
+  { to: '/admin/pass-levels', label: 'Pass levels', roles: ['admin'] },
+  { to: '/admin/protocols', label: 'Protocols', roles: ['admin'] },
   { to: '/admin/users', label: 'Users', roles: ['admin'] },
   { to: '/admin/outbox', label: 'Outbox', roles: ['admin'] },
   { to: '/admin/settings', label: 'Settings', roles: ['admin'] }

@@ -3,6 +3,7 @@ import { spawn } from 'node:child_process'
 import { join } from 'node:path'
 import { ensureCluster, resolveClusterDir } from './postgres.mjs'
 import { log } from './log.mjs'
+import { databasePasswords } from './secrets.mjs'
 import { waitFor } from './run.mjs'
 
 /** The database server: NUXT_DATABASE_URL when given (no cluster started), else our private cluster. */
@@ -12,9 +13,10 @@ export async function ensureDatabaseServer(projectDir, { externalUrl, port }) {
     return { serverUrl: externalUrl, external: true, stop: () => {} }
   }
   const dataDir = resolveClusterDir(projectDir, 'pg')
-  const cluster = await ensureCluster({ dataDir, port })
+  const passwords = databasePasswords(join(projectDir, '.data', 'database-passwords.json'))
+  const cluster = await ensureCluster({ dataDir, port, superuserPassword: passwords.superuser })
   log.ok(`PostgreSQL on 127.0.0.1:${port} (${cluster.owned ? 'started here' : 'already running'})`)
-  return { serverUrl: cluster.url('postgres'), external: false, stop: () => cluster.owned && cluster.stop() }
+  return { serverUrl: cluster.url('postgres'), external: false, passwords, stop: () => cluster.owned && cluster.stop() }
 }
 
 /** Spawns a long-running child whose output is prefixed; resolves once `ready()` answers. */

@@ -4,6 +4,7 @@ import type { SeedDb } from './db'
 import { schema } from './db'
 import { seedAssessments } from './assessments'
 import { seedFitTests } from './fit-tests'
+import { seedOversight } from './oversight'
 import { hashPassword } from './hash'
 import { seedEquipment } from './equipment'
 import { seedInsights } from './insights'
@@ -44,5 +45,6 @@ export async function seedDemo(db: SeedDb, onProgress: (text: string) => void = 
   await seedInsights(db, seeded, onProgress)
   onProgress('Exposure assessments')
   await seedAssessments(db, seeded)
+  await seedOversight(db, seeded)
   return seeded
 }

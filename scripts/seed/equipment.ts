@@ -1,7 +1,7 @@
 // The demo's counters, bench rig, readiness checks, mask units and headform tests (DOMAIN.md
 // "Demo scenario"). Every serial, maker and model is invented.
 import { eq } from 'drizzle-orm'
-import { evaluateAcceptanceRule } from '../../shared/utils/compute'
+import { computeHeadformTest, evaluateAcceptanceRule } from '../../shared/utils/compute'
 import { DEFAULT_TEMPLATES } from '../../shared/utils/readiness-defaults'
 import type { ReadinessStep, StepEntry } from '../../shared/utils/readiness-schemas'
 import { subChecksFor } from '../../shared/utils/mask-schemas'
@@ -143,7 +143,8 @@ async function seedHarrowPoint(tx: Tx, org: SeededOrganization) {
       const [row] = await tx.insert(schema.headformTests).values({
         organizationId: org.id, maskUnitId: unit!.id, benchRigId: rig!.id, counterId: counter!.id, siteId: gorse!,
         performedAt: t.at, performedBy: org.userIds.tester, outside: 26_000 + (i * 137) % 1500, inside: t.inside, sampleSeconds: 60,
-        sampleFlowCm3PerMin: counter!.sampleFlowCm3PerMin, passLevel: type.headformPassLevel ?? 2000, passLevelIsDefault: type.headformPassLevel === null, subChecks
+        sampleFlowCm3PerMin: counter!.sampleFlowCm3PerMin, passLevel: type.headformPassLevel ?? 2000, passLevelIsDefault: type.headformPassLevel === null, subChecks,
+        passed: headformPassed({ outside: 26_000 + (i * 137) % 1500, inside: t.inside, passLevel: type.headformPassLevel ?? 2000, subChecks }, type)
       }).returning()
       if (failing && recent) {
         await tx.update(schema.maskUnits).set({ state: 'held' }).where(eqId(unit!.id))
@@ -155,6 +156,15 @@ async function seedHarrowPoint(tx: Tx, org: SeededOrganization) {
       await tx.insert(schema.maskUnitEvents).values({ organizationId: org.id, maskUnitId: unit!.id, fromState: 'in-service', toState: 'retired', reason: 'Lens crazed after a decontamination cycle', actorUserId: org.userIds.tester, at: daysAgo(3, 11) })
     }
   }
+}
+
+/** The verdict kept beside the raw inputs, computed by the same module the server uses. */
+function headformPassed(t: { outside: number, inside: number, passLevel: number, subChecks: Record<string, boolean> }, type: { hasDrinkTube: boolean, hasExhalationValve: boolean }) {
+  return computeHeadformTest({
+    bench: { outside: t.outside, inside: t.inside, sampleSeconds: 60, sampleFlowCm3PerMin: 350 },
+    passLevel: t.passLevel,
+    subChecks: subChecksFor(type).map(c => ({ key: c.key, label: c.label, rule: c.rule, value: t.subChecks[c.key] }))
+  }).passed === true
 }
 
 function eqId(id: string) {

@@ -94,7 +94,9 @@ export async function seedFitTests(db: SeedDb, orgs: SeededOrganization[], onPro
     await coverTestDays(db, org, rows, sites, random)
     for (let i = 0; i < rows.length; i += 100) {
       await db.insert(schema.fitTests).values(rows.slice(i, i + 100).map(r => r.test))
-      await db.insert(schema.fitCards).values(rows.slice(i, i + 100).map(r => r.card))
+      // Only a passing test has a card (and so a verification link).
+      const cards = rows.slice(i, i + 100).flatMap(r => (r.card ? [r.card] : []))
+      if (cards.length) await db.insert(schema.fitCards).values(cards)
     }
     onProgress(`${orgRow!.name}: ${rows.length} fit tests, each day's counter check before them`)
   }
@@ -123,7 +125,7 @@ async function coverTestDays(db: SeedDb, org: SeededOrganization, rows: TestRows
 
 interface TestRows {
   test: typeof schema.fitTests.$inferInsert & { performedAt: Date }
-  card: typeof schema.fitCards.$inferInsert
+  card: typeof schema.fitCards.$inferInsert | null
 }
 
 interface TestSpec {
@@ -161,15 +163,16 @@ function buildTest(s: TestSpec): TestRows {
   const level = resolvePassLevel({ ruleSet, respiratorClass: s.model.respiratorClass, overrides: s.orgRow.settings.passLevelOverrides })
   const { stored } = storedFieldsOf({ kind: 'quantitative', protocol, entry, sampleFlowCm3PerMin: s.counter.sampleFlowCm3PerMin, passLevel: level.ok ? level.value.level : null, testedOn: localDate(s.performedAt, s.site.timeZone), retestMonths: 12 })
   const recordId = randomUUID()
+  const id = randomUUID()
   return {
     test: {
-      organizationId: s.org.id, recordId, revision: 1, status: 'finished', version: 2,
+      id, organizationId: s.org.id, recordId, revision: 1, status: 'finished', version: 2,
       personId: s.person.id, siteId: s.site.id, testerUserId: s.org.userIds.tester!, counterId: s.counter.id,
       respiratorModelId: s.model.id, respiratorMake: s.model.make, respiratorModel: s.model.model, respiratorClass: s.model.respiratorClass, respiratorSize: s.size,
       kind: 'quantitative', protocolKey: protocol.key, protocol, sampleFlowCm3PerMin: s.counter.sampleFlowCm3PerMin, performedAt: s.performedAt,
       preTest: { medicalClearanceCurrent: true, nothingCrossingSeal: true, userSealCheckDone: true, comfortAcceptable: true },
       entry, ...stored, finishedAt: new Date(s.performedAt.getTime() + 9 * 60_000), finishedByUserId: s.org.userIds.tester!
     },
-    card: { organizationId: s.org.id, recordId, token: randomBytes(24).toString('base64url') }
+    card: stored.passed ? { organizationId: s.org.id, recordId, fitTestId: id, token: randomBytes(24).toString('base64url') } : null
   }
 }

@@ -14,6 +14,7 @@ export interface Caller {
 /**
  * The one gate every API route passes through. It re-reads the user from the database on each
  * request, so a deactivated user or a changed role takes effect at once, whatever the cookie says.
+ * A cookie older than the user's session version is refused too (see `endAllSessions`).
  * Anonymous → 401; signed in with a role not in `allowed` → 403. Admins pass every role check.
  * With no roles given, any active signed-in user passes.
  */
@@ -30,7 +31,8 @@ export async function requireRole(event: H3Event, ...allowed: Role[]): Promise<C
       role: schema.users.role,
       email: schema.users.email,
       displayName: schema.users.displayName,
-      active: schema.users.active
+      active: schema.users.active,
+      sessionVersion: schema.users.sessionVersion
     })
     .from(schema.users)
     .where(and(eq(schema.users.id, sessionUser.id), eq(schema.users.organizationId, sessionUser.organizationId)))
@@ -38,9 +40,15 @@ export async function requireRole(event: H3Event, ...allowed: Role[]): Promise<C
     await clearUserSession(event)
     throw httpError(401, 'Your account is no longer active. Ask your program administrator.')
   }
+  // A cookie issued before the last sign-out everywhere, password change or deactivation is dead.
+  if (session.sessionVersion !== user.sessionVersion) {
+    await clearUserSession(event)
+    throw httpError(401, 'Your session has ended. Sign in again.')
+  }
   if (allowed.length > 0 && !roleAllows(user.role, allowed)) {
     throw httpError(403, 'Your role does not allow this.')
   }
-  event.context.caller = user
-  return user
+  const caller: Caller = { id: user.id, organizationId: user.organizationId, role: user.role, email: user.email, displayName: user.displayName }
+  event.context.caller = caller
+  return caller
 }

@@ -24,7 +24,7 @@ function findPgError(error: unknown): PgError | null {
 
 /** Unique constraints by name: the field a form shows the message beside, and the message. */
 const DUPLICATES: Record<string, { field: string, message: string }> = {
-  users_email_unique: { field: 'email', message: 'This e-mail address already has an account.' },
+  users_organization_email_unique: { field: 'email', message: 'This e-mail address already has an account.' },
   people_employee_number_unique: { field: 'employeeNumber', message: 'Another person on the roster has this employee number.' },
   respirator_models_make_model_unique: { field: 'model', message: 'Your catalogue already lists this make and model.' },
   counters_serial_unique: { field: 'serialNumber', message: 'Another counter has this serial number.' },

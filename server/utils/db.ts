@@ -12,11 +12,17 @@ function createDatabase(url: string) {
     connectionTimeoutMillis: 3000,
     idleTimeoutMillis: 30_000
   })
-  // An idle client losing its connection (the database restarted) must not crash the server;
-  // the pool drops it and the next query opens a fresh one.
+  // A client losing its connection (the database restarted) must not crash the server, whether it
+  // sits idle in the pool or is checked out between two statements: the pool drops it and the
+  // next query opens a fresh one.
   pool.on('error', (error) => {
-    console.warn(`[db] idle connection lost: ${error.message}`)
+    logServerError('db idle connection lost', error)
   })
+  pool.on('connect', (client) => {
+    client.on('error', error => logServerError('db connection lost', error))
+    trackOutcomes(client)
+  })
+  trackOutcomes(pool)
   return Object.assign(drizzle(pool, { schema, casing: 'snake_case' }), { pool })
 }
 

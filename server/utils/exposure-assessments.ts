@@ -15,7 +15,7 @@ export function assessmentError(statusCode: number, message: string, fieldErrors
   return httpError(statusCode, message, fieldErrors ? { fieldErrors } : undefined)
 }
 
-export async function ruleSetOf(organizationId: string): Promise<PassLevelRuleSetKey> {
+export async function ruleSetKeyOf(organizationId: string): Promise<PassLevelRuleSetKey> {
   const [org] = await useDb().select({ ruleSet: schema.organizations.ruleSet }).from(schema.organizations).where(eq(schema.organizations.id, organizationId))
   return org?.ruleSet === 'uk-hse' ? 'uk-hse' : 'us-osha'
 }

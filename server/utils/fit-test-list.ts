@@ -10,6 +10,7 @@ function conditions(organizationId: string, q: Omit<ListFitTestsQuery, 'page' | 
     eq(t.organizationId, organizationId),
     // One line per record: superseded revisions and open corrections stay on the record's own page.
     ne(t.status, 'superseded'),
+    ne(t.status, 'discarded'),
     or(ne(t.status, 'draft'), eq(t.revision, 1))
   ]
   if (onlyPersonUserId) where.push(eq(p.userId, onlyPersonUserId))
@@ -78,8 +79,15 @@ export async function listFitTests(organizationId: string, q: ListFitTestsQuery,
   return { rows: rows.map(r => ({ ...r, coverage: coverage.get(r.id) ?? null })), total: total?.n ?? 0, page: q.page, pageSize: q.pageSize }
 }
 
+/** The list's rows with the raw inputs the export recomputes each exercise from. */
 export async function exportFitTests(organizationId: string, q: ListFitTestsQuery) {
-  const rows = await baseQuery().where(conditions(organizationId, q)).orderBy(desc(t.performedAt)).limit(50_000)
+  const rows = await useDb().select({ ...columns, protocol: t.protocol, entry: t.entry, seriesText: t.seriesText, sampleFlowCm3PerMin: t.sampleFlowCm3PerMin })
+    .from(t)
+    .innerJoin(p, eq(p.id, t.personId))
+    .innerJoin(schema.sites, eq(schema.sites.id, t.siteId))
+    .innerJoin(schema.users, eq(schema.users.id, t.testerUserId))
+    .leftJoin(schema.counters, eq(schema.counters.id, t.counterId))
+    .where(conditions(organizationId, q)).orderBy(desc(t.performedAt)).limit(50_000)
   const coverage = await findCoverageMany(organizationId, rows)
   return rows.map(r => ({ ...r, coverage: coverage.get(r.id) ?? null }))
 }

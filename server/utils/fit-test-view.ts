@@ -2,6 +2,8 @@ import { and, eq } from 'drizzle-orm'
 import { FIT_TEST_CAUTIONS, findRespiratorClass } from '#shared/utils/compute'
 import type { Caller } from './auth'
 import type { FitTestRow } from './fit-tests'
+import { cardDecision, coverageFlagOf } from '#shared/utils/fit-card-rules'
+import { recordCitations } from '#shared/utils/jurisdiction'
 
 /** Everything the result page, the record and the card need about one revision. */
 export async function fitTestView(caller: Caller, row: FitTestRow) {
@@ -14,9 +16,12 @@ export async function fitTestView(caller: Caller, row: FitTestRow) {
     ? await db.select().from(schema.counters).where(eq(schema.counters.id, row.counterId))
     : [null]
   const { evaluation } = computeStoredResult(row, org, site.timeZone)
+  const [maskUnit] = row.maskUnitId
+    ? await db.select({ id: schema.maskUnits.id, serialNumber: schema.maskUnits.serialNumber, state: schema.maskUnits.state }).from(schema.maskUnits).where(eq(schema.maskUnits.id, row.maskUnitId))
+    : [null]
   const [revisions, card, coverage] = await Promise.all([
     listRevisions(caller.organizationId, row.recordId),
-    findCard(caller.organizationId, row.recordId),
+    findCard(caller.organizationId, row),
     row.counterId ? findCoverage(caller.organizationId, { counterId: row.counterId, siteId: row.siteId, performedAt: row.performedAt }) : null
   ])
   return {
@@ -33,7 +38,12 @@ export async function fitTestView(caller: Caller, row: FitTestRow) {
     seriesIssues: evaluation?.seriesIssues ?? [],
     revisions,
     coverage,
-    cardToken: card && (row.status === 'finished' || row.status === 'withdrawn') ? card.token : null,
+    // A verification link only for a revision that passed and was given a card; a failed test has none.
+    cardToken: card && row.passed && row.status !== 'draft' ? card.token : null,
+    card: cardDecision({ status: row.status, passed: row.passed, coverage: coverageFlagOf(coverage), uncoveredResults: org.settings.uncoveredResults }),
+    coverageFlag: coverageFlagOf(coverage),
+    citations: recordCitations(org.ruleSet),
+    maskUnit,
     cautions: FIT_TEST_CAUTIONS
   }
 }

@@ -30,14 +30,17 @@ export function passLevelFor(org: Organization, respiratorClass: string) {
  * The server's own result for a revision, recomputed from the raw inputs only: nothing the client
  * computed is ever read. Qualitative tests carry the recorded pass or fail.
  */
-export function computeStoredResult(row: Pick<FitTestRow, 'kind' | 'protocol' | 'entry' | 'seriesText' | 'sampleFlowCm3PerMin' | 'respiratorClass' | 'performedAt'>, org: Organization, timeZone: string) {
+export function computeStoredResult(row: Pick<FitTestRow, 'kind' | 'protocol' | 'entry' | 'seriesText' | 'sampleFlowCm3PerMin' | 'respiratorClass' | 'performedAt'> & Partial<Pick<FitTestRow, 'status' | 'passLevel'>>, org: Organization, timeZone: string) {
+  // A finished record keeps the pass level it was finished against: a level raised or lowered
+  // later never changes the verdict of a record already issued.
+  const keptLevel = row.status && row.status !== 'draft' && row.passLevel !== null && row.passLevel !== undefined ? row.passLevel : null
   return storedFieldsOf({
     kind: row.kind,
     protocol: row.protocol as Protocol | null,
     entry: row.entry,
     seriesText: row.seriesText,
     sampleFlowCm3PerMin: row.sampleFlowCm3PerMin,
-    passLevel: row.kind === 'qualitative' ? null : passLevelFor(org, row.respiratorClass).level,
+    passLevel: row.kind === 'qualitative' ? null : keptLevel ?? passLevelFor(org, row.respiratorClass).level,
     testedOn: localDate(row.performedAt, timeZone),
     retestMonths: retestIntervalMonths(org.settings.retestIntervalMonths)
   })
@@ -64,9 +67,9 @@ export async function resolveReferences(organizationId: string, input: { personI
   return { person: person!, model: model!, site: site!, counter: counter ?? null }
 }
 
-export function protocolFor(protocolKey: string, kind: 'quantitative' | 'qualitative'): Protocol | null {
+export function protocolFor(protocolKey: string, kind: 'quantitative' | 'qualitative', org?: Pick<Organization, 'settings'>): Protocol | null {
   if (kind === 'qualitative') return null
-  const protocol = findBuiltInProtocol(protocolKey)
+  const protocol = org ? findOfferedProtocol(org, protocolKey) : findBuiltInProtocol(protocolKey)
   if (!protocol) {
     throw httpError(400, 'Choose a quantitative protocol for a quantitative test.', { fieldErrors: { protocolKey: 'Choose a quantitative protocol.' } })
   }
@@ -131,13 +134,34 @@ export async function listRevisions(organizationId: string, recordId: string) {
     .from(t).where(and(eq(t.organizationId, organizationId), eq(t.recordId, recordId))).orderBy(asc(t.revision))
 }
 
-export async function ensureCard(tx: Parameters<Parameters<Database['transaction']>[0]>[0], organizationId: string, recordId: string) {
-  await tx.insert(schema.fitCards).values({ organizationId, recordId, token: randomBytes(24).toString('base64url') }).onConflictDoNothing()
+
+/** Gives a finished, passing revision its own card token (once). */
+export async function ensureCard(tx: Tx, organizationId: string, row: Pick<FitTestRow, 'id' | 'recordId'>) {
+  await tx.insert(schema.fitCards).values({ organizationId, recordId: row.recordId, fitTestId: row.id, token: randomBytes(24).toString('base64url') }).onConflictDoNothing()
 }
 
-export async function findCard(organizationId: string, recordId: string) {
-  const [card] = await useDb().select().from(schema.fitCards).where(and(eq(schema.fitCards.organizationId, organizationId), eq(schema.fitCards.recordId, recordId)))
-  return card ?? null
+/**
+ * The card printed for this revision: its own, or — for cards made before each revision had one —
+ * the record's card when this revision is the one the record stands on.
+ */
+export async function findCard(organizationId: string, row: Pick<FitTestRow, 'id' | 'recordId' | 'status'>) {
+  const c = schema.fitCards
+  const cards = await useDb().select().from(c).where(and(eq(c.organizationId, organizationId), eq(c.recordId, row.recordId)))
+  const own = cards.find(card => card.fitTestId === row.id)
+  if (own) return own
+  const legacy = cards.find(card => card.fitTestId === null)
+  if (!legacy) return null
+  const current = await currentRevision(organizationId, row.recordId)
+  return current?.id === row.id ? legacy : null
+}
+
+/** The revision a card stands for: its own, or for an older card the record's current revision. */
+export async function cardRevision(card: typeof schema.fitCards.$inferSelect) {
+  if (card.fitTestId) {
+    const [row] = await useDb().select().from(schema.fitTests).where(and(eq(schema.fitTests.organizationId, card.organizationId), eq(schema.fitTests.id, card.fitTestId)))
+    return row ?? null
+  }
+  return currentRevision(card.organizationId, card.recordId)
 }
 
 /** The revision a record stands on now: the finished (or withdrawn) one, else the newest. */

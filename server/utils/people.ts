@@ -1,7 +1,6 @@
 import { and, asc, eq } from 'drizzle-orm'
 import type { z } from 'zod'
 import type { listPeopleQuerySchema } from '#shared/utils/person-schemas'
-import { personFitStatus } from '#shared/utils/person-schemas'
 
 export type PersonRow = typeof schema.people.$inferSelect
 
@@ -17,23 +16,26 @@ export function todayUtc() {
 
 /** The roster with each person's fit status, filtered, sorted and paged in memory (rosters are thousands, not millions). */
 export async function listPeople(organizationId: string, q: z.output<typeof listPeopleQuerySchema>) {
-  const [rows, passes, sites] = await Promise.all([
+  const today = todayUtc()
+  const [rows, standingFor, sites] = await Promise.all([
     useDb().select().from(schema.people).where(eq(schema.people.organizationId, organizationId)).orderBy(asc(schema.people.fullName)),
-    latestPassByPerson(organizationId),
+    loadStandings(organizationId, today),
     listSites(organizationId)
   ])
   const siteNames = new Map(sites.map(s => [s.id, s.name]))
-  const today = todayUtc()
   const needle = q.q?.toLowerCase()
   let list = rows.map((p) => {
-    const pass = passes.get(p.id)
+    const standing = standingFor(p.id)
+    const fitted = standing.respirators.filter(r => r.lastPass)
     return {
       id: p.id, fullName: p.fullName, employeeNumber: p.employeeNumber, jobTitle: p.jobTitle, siteId: p.siteId,
       siteName: p.siteId ? siteNames.get(p.siteId) ?? null : null, active: p.active,
       medicalClearanceStatus: p.medicalClearanceStatus,
-      nextDueOn: pass?.dueOn ?? null,
-      currentRespirator: pass ? `${pass.respiratorMake} ${pass.respiratorModel}, ${pass.respiratorSize}` : null,
-      status: personFitStatus(pass?.dueOn ?? null, today)
+      clearance: standing.clearance.status,
+      nextDueOn: standing.nextDueOn,
+      // Every respirator with a pass, each with its size: a person may wear several.
+      currentRespirator: fitted.length ? fitted.map(r => `${r.make} ${r.model}, ${r.lastPass!.size}`).join('; ') : null,
+      status: standing.status
     }
   })
   if (needle) list = list.filter(p => p.fullName.toLowerCase().includes(needle) || (p.employeeNumber ?? '').toLowerCase().includes(needle) || (p.jobTitle ?? '').toLowerCase().includes(needle))

@@ -1,4 +1,4 @@
-import { and, asc, count, desc, eq, ilike, ne, or } from 'drizzle-orm'
+import { and, asc, count, desc, eq, ilike, ne, or, sql } from 'drizzle-orm'
 import type { z } from 'zod'
 import type { listUsersQuerySchema } from '#shared/utils/user-schemas'
 
@@ -51,7 +51,15 @@ export async function countOtherActiveAdmins(organizationId: string, exceptUserI
   return row?.n ?? 0
 }
 
-export async function findUserByEmail(email: string) {
-  const [row] = await useDb().select().from(schema.users).where(eq(schema.users.email, email))
+/** Every account under this address (one per organization at most), most recently used first. */
+export async function findUsersByEmail(email: string) {
+  return useDb().select().from(schema.users).where(eq(schema.users.email, email))
+    .orderBy(sql`${schema.users.lastSignInAt} desc nulls last`, asc(schema.users.createdAt))
+}
+
+/** The organization's account under this address, or null. */
+export async function findOrganizationUserByEmail(organizationId: string, email: string) {
+  const [row] = await useDb().select({ id: schema.users.id }).from(schema.users)
+    .where(and(eq(schema.users.organizationId, organizationId), eq(schema.users.email, email)))
   return row ?? null
 }

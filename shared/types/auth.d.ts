@@ -10,6 +10,8 @@ declare module '#auth-utils' {
   }
   interface UserSession {
     signedInAt?: string
+    /** The user's session version when this cookie was issued; a higher one in the database ends it. */
+    sessionVersion?: number
   }
 }
 

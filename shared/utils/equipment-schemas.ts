@@ -51,7 +51,3 @@ export function calibrationState(dueOn: string | null, today: string): { state: 
   if (daysLeft <= CALIBRATION_WARNING_DAYS) return { state: 'due-soon', daysLeft }
   return { state: 'ok', daysLeft }
 }
-
-export const settingsSchema = z.object({
-  uncoveredResults: z.enum(['flag', 'refuse'], { error: 'Choose flag or refuse.' })
-})

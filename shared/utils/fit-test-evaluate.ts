@@ -65,7 +65,8 @@ export interface Evaluation {
 export function evaluateFitTest(input: EvaluationInput): Evaluation {
   const { protocol, entry } = input
   if (entry.mode === 'series') {
-    const parsed = parseCountSeries(input.seriesText ?? '', protocol, { offsetSeconds: entry.seriesOffsetSeconds })
+    // Read with the decimal mark kept in the entry, so a record recomputes the same after the setting changes.
+    const parsed = parseCountSeries(input.seriesText ?? '', protocol, { offsetSeconds: entry.seriesOffsetSeconds, decimalMark: entry.decimalMark ?? 'point' })
     const fromSeries = segmentsToFitTestInputs(parsed.segments, protocol)
     const result = computeFitTest({
       protocol,

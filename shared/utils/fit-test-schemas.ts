@@ -1,6 +1,7 @@
 import { z } from 'zod'
-import { BUILT_IN_PROTOCOLS } from './compute'
-import { calendarDate, databaseInteger, pageNumber, pastInstant } from './input-ranges'
+import { calendarDate, changesSchema, databaseInteger, pageNumber, pastInstant } from './input-ranges'
+import { DECIMAL_MARKS } from './number-reader'
+import type { DecimalMark } from './number-reader'
 
 /**
  * Items checked before a fit test starts. Any one not met blocks the test:
@@ -62,6 +63,11 @@ export const fitTestEntrySchema = z.object({
   wholeTestAmbient: z.object({ start: concentration, end: concentration }).nullable().default(null),
   /** Seconds to shift a pasted series so its first reading lines up with the protocol's start. */
   seriesOffsetSeconds: z.number().min(-3600).max(3600).default(0),
+  /**
+   * The decimal mark a pasted series is read with, kept with the record so it recomputes the same
+   * after the organization changes its setting. Absent on older records: point.
+   */
+  decimalMark: z.enum(DECIMAL_MARKS as [DecimalMark, ...DecimalMark[]], { error: 'Choose a point or a comma as the decimal mark.' }).optional(),
   qualitative: z.object({
     agent: z.enum(Object.keys(QUALITATIVE_AGENTS) as [QualitativeAgent, ...QualitativeAgent[]], { error: 'Choose the test agent.' }),
     result: z.enum(['pass', 'fail'], { error: 'Choose pass or fail.' })
@@ -69,7 +75,6 @@ export const fitTestEntrySchema = z.object({
 })
 export type FitTestEntry = z.infer<typeof fitTestEntrySchema>
 
-const protocolKeys = BUILT_IN_PROTOCOLS.map(p => p.key) as [string, ...string[]]
 export const QUALITATIVE_PROTOCOL_KEY = 'qualitative-app-a'
 
 const isoInstant = pastInstant('Give the test time as a date and time.')
@@ -80,13 +85,19 @@ export const createFitTestSchema = z.object({
   personId: z.uuid({ error: 'Choose the person being tested.' }),
   respiratorModelId: z.uuid({ error: 'Choose the respirator model.' }),
   respiratorSize: z.string({ error: 'Choose the size.' }).trim().min(1, { error: 'Choose the size.' }).max(40),
-  protocolKey: z.enum([...protocolKeys, QUALITATIVE_PROTOCOL_KEY] as [string, ...string[]], { error: 'Choose a protocol.' }),
+  // A built-in protocol, the qualitative one, or one of the organization's own (the route looks it up).
+  protocolKey: z.string({ error: 'Choose a protocol.' }).trim().min(1, { error: 'Choose a protocol.' }).max(80, { error: 'Choose a protocol.' }),
   counterId: z.uuid({ error: 'Choose the counter used.' }).nullable().default(null),
+  /** The serial-numbered unit worn, when the model's units are tracked. */
+  maskUnitId: z.uuid({ error: 'Choose the mask unit the wearer wears.' }).nullable().default(null),
   siteId: z.uuid({ error: 'Choose the site.' }),
   performedAt: isoInstant.optional(),
   preTest: preTestSchema.default({ medicalClearanceCurrent: false, nothingCrossingSeal: false, userSealCheckDone: false, comfortAcceptable: false }),
   entry: fitTestEntrySchema.optional(),
-  seriesText: z.string().max(2_000_000, { error: 'The series is larger than 2 MB; split it or use a 1 Hz export.' }).nullable().optional()
+  seriesText: z.string().max(2_000_000, { error: 'The series is larger than 2 MB; split it or use a 1 Hz export.' }).nullable().optional(),
+  /** Why the test goes ahead without a current medical clearance covering this respirator class. */
+  clearanceReason: z.string({ error: 'Write the reason as text.' }).trim().max(500, { error: 'Use at most 500 characters.' })
+    .refine(v => ![...v].some(ch => ch.charCodeAt(0) < 32 && ch !== '\n'), { error: 'Remove the control characters.' }).optional()
 }).refine(v => v.kind === 'qualitative' || v.counterId !== null, { error: 'Choose the counter used.', path: ['counterId'] })
 export type CreateFitTest = z.input<typeof createFitTestSchema>
 
@@ -94,9 +105,11 @@ export const updateFitTestSchema = z.object({
   version: databaseInteger('The draft version is missing; reload the page.').positive(),
   respiratorSize: z.string().trim().min(1, { error: 'Choose the size.' }).max(40).optional(),
   counterId: z.uuid({ error: 'Choose the counter used.' }).nullable().optional(),
+  maskUnitId: z.uuid({ error: 'Choose the mask unit the wearer wears.' }).nullable().optional(),
   performedAt: isoInstant.optional(),
-  preTest: preTestSchema.optional(),
-  entry: fitTestEntrySchema.optional(),
+  // Each pre-test item and each part of the entry sent replaces only itself; the exercises are one list.
+  preTest: changesSchema(preTestSchema).optional(),
+  entry: changesSchema(fitTestEntrySchema).optional(),
   seriesText: z.string().max(2_000_000, { error: 'The series is larger than 2 MB.' }).nullable().optional()
 })
 export type UpdateFitTest = z.input<typeof updateFitTestSchema>

@@ -43,7 +43,9 @@ export const updateMaskUnitSchema = changesSchema(maskUnitSchema)
 
 export const changeMaskStateSchema = z.object({
   state: z.enum(MASK_UNIT_STATES, { error: 'Choose in service, held or retired.' }),
-  reason: text('the reason for the change', 600)
+  reason: text('the reason for the change', 600),
+  /** A program admin returning a held unit to service without a passing headform test since the hold. */
+  override: z.boolean({ error: 'Override must be true or false.' }).optional()
 })
 export type ChangeMaskState = z.infer<typeof changeMaskStateSchema>
 

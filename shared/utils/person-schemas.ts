@@ -28,15 +28,17 @@ export const personSchema = z.object({
 export type PersonInput = z.input<typeof personSchema>
 
 export const updatePersonSchema = changesSchema(personSchema).extend({
-  active: z.boolean().optional()
+  active: z.boolean({ error: 'Choose active or not.' }).optional(),
+  reminderOptOut: z.boolean({ error: 'Choose whether this person gets reminder e-mail.' }).optional()
 })
 
-export const PERSON_STATUSES = ['current', 'due-soon', 'overdue', 'never-tested'] as const
+export const PERSON_STATUSES = ['current', 'due-soon', 'overdue', 'failed', 'never-tested'] as const
 export type PersonFitStatus = typeof PERSON_STATUSES[number]
 export const PERSON_STATUS_LABELS: Record<PersonFitStatus, string> = {
   'current': 'Current',
   'due-soon': 'Due within 30 days',
   'overdue': 'Overdue',
+  'failed': 'Failed — retest needed',
   'never-tested': 'Never tested'
 }
 

@@ -81,7 +81,9 @@ describe('mask types and units', () => {
     const unit = await newUnit('HB-0002')
     expect((await tester.post(`/api/mask-units/${unit.id}/state`, { state: 'held', reason: '' })).status).toBe(400)
     expect((await tester.post(`/api/mask-units/${unit.id}/state`, { state: 'held', reason: 'Strap frayed' })).body.state).toBe('held')
-    await tester.post(`/api/mask-units/${unit.id}/state`, { state: 'in-service', reason: 'Strap replaced' })
+    // A held unit needs a passing headform test after the hold: 24,000 / 4 = 6,000 ≥ 2,000 (derived; default level from memory).
+    await tester.post('/api/headform-tests', { maskUnitId: unit.id, benchRigId: rigId, outside: 24000, inside: 4, sampleSeconds: 60, subChecks: cbrnSubChecks })
+    expect((await tester.post(`/api/mask-units/${unit.id}/state`, { state: 'in-service', reason: 'Strap replaced' })).status).toBe(200)
     await tester.post(`/api/mask-units/${unit.id}/state`, { state: 'retired', reason: 'Lens scratched beyond repair' })
     const detail = await reviewer.get(`/api/mask-units/${unit.id}`)
     expect(detail.body.events.map((e: { reason: string }) => e.reason)).toEqual(['Lens scratched beyond repair', 'Strap replaced', 'Strap frayed', 'Added to the register'])

@@ -27,3 +27,23 @@ export async function signInAs(page: Page, email: string, password: string) {
 }
 
 export { baseUrl }
+
+/**
+ * Records every Content-Security-Policy refusal on the page (the browser's own
+ * `securitypolicyviolation` event, plus its console report) so a test can assert there were none.
+ */
+export async function watchPolicyViolations(page: Page) {
+  const seen: string[] = []
+  page.on('console', (message) => {
+    if (/Content Security Policy|Refused to (execute|load|apply|connect|frame)/i.test(message.text())) seen.push(message.text())
+  })
+  await page.exposeFunction('__reportPolicyViolation', (text: string) => {
+    seen.push(text)
+  })
+  await page.addInitScript(() => {
+    document.addEventListener('securitypolicyviolation', (event) => {
+      (window as unknown as { __reportPolicyViolation: (t: string) => void }).__reportPolicyViolation(`${event.violatedDirective} refused ${event.blockedURI || 'inline'} at ${event.sourceFile}:${event.lineNumber}`)
+    })
+  })
+  return seen
+}

@@ -1,3 +1,4 @@
+import { randomInt } from 'node:crypto'
 import { baseUrl } from './env'
 
 export interface Reply<T = any> {
@@ -23,7 +24,8 @@ export class Client {
 
   constructor(address?: string) {
     addressCounter++
-    this.address = address ?? `10.${process.pid % 250}.${Math.floor(addressCounter / 250)}.${addressCounter % 250}`
+    // Random, so two test files never share an address and so never share its sign-in limit.
+    this.address = address ?? `10.${randomInt(250)}.${randomInt(250)}.${addressCounter % 250}`
   }
 
   /** The raw response (for PDFs and other binary bodies), with this client's cookies. */

@@ -4,6 +4,7 @@ import {
   STANDARD_PROTOCOL,
   computeFitTest,
   detectDelimiter,
+  mulberry32,
   parseCountSeries,
   protocolSchema,
   protocolTimeline,
@@ -11,6 +12,7 @@ import {
   segmentsToFitTestInputs
 } from '#shared/utils/compute'
 import type { Protocol } from '#shared/utils/compute'
+import { readTypedNumber } from '#shared/utils/number-reader'
 
 // A 1 Hz long-layout series that follows the protocol's timeline: ambient readings during
 // ambient phases, mask readings otherwise. Demo values, invented.
@@ -42,11 +44,11 @@ describe('reading a count series', () => {
   })
 
   it.each([
-    { case: 'tabs, no header', text: '0\tambient\t1000\n1\tmask\t2', delimiter: '\t' },
-    { case: 'semicolons with decimal commas', text: 't;channel;conc\n0;ambient;1000,5\n1;mask;2,25', delimiter: ';' },
-    { case: 'commas, Windows line ends', text: 't,channel,conc\r\n0,ambient,1000.5\r\n1,mask,2.25\r\n', delimiter: ',' }
-  ])('detects $case', ({ text, delimiter }) => {
-    const r = readCountSeries(text)
+    { case: 'tabs, no header', text: '0\tambient\t1000\n1\tmask\t2', delimiter: '\t', decimalMark: 'point' as const },
+    { case: 'semicolons with decimal commas', text: 't;channel;conc\n0;ambient;1000,5\n1;mask;2,25', delimiter: ';', decimalMark: 'comma' as const },
+    { case: 'commas, Windows line ends', text: 't,channel,conc\r\n0,ambient,1000.5\r\n1,mask,2.25\r\n', delimiter: ',', decimalMark: 'point' as const }
+  ])('detects $case', ({ text, delimiter, decimalMark }) => {
+    const r = readCountSeries(text, { decimalMark })
     expect(r.delimiter).toBe(delimiter)
     expect(r.issues).toEqual([])
     expect(r.readings.map(x => x.concentration)).toEqual(delimiter === '\t' ? [1000, 2] : [1000.5, 2.25])
@@ -81,9 +83,12 @@ describe('reading a count series', () => {
   })
 
   it.each([
-    { text: 't,channel,conc\n0,ambient,abc', row: 2, column: 3, code: 'not-a-number', message: 'Row 2, column 3: concentration \'abc\' is not a number' },
+    { text: 't,channel,conc\n0,ambient,abc', row: 2, column: 3, code: 'not-a-number', message: 'Row 2, column 3 (concentration): \'abc\' has letters or signs in it: type the number only, without units.' },
     { text: 't,channel,conc\n0,ambient,-4', row: 2, column: 3, code: 'negative', message: 'Row 2, column 3: concentration cannot be negative (-4)' },
-    { text: 't,channel,conc\n0,ambient,0x1f', row: 2, column: 3, code: 'not-a-number', message: 'Row 2, column 3: concentration \'0x1f\' is not a number' },
+    { text: 't,channel,conc\n0,ambient,0x1f', row: 2, column: 3, code: 'not-a-number', message: 'Row 2, column 3 (concentration): \'0x1f\' looks like a hexadecimal, octal or binary number: type the reading in decimal digits.' },
+    { text: 't;channel;conc\n0;ambient;1,5', row: 2, column: 3, code: 'not-a-number', message: 'Row 2, column 3 (concentration): \'1,5\' is ambiguous: write 1.5 or 15.' },
+    { text: 't\tambient\tmask\n0\t8000\t1,23', row: 2, column: 3, code: 'not-a-number', message: 'Row 2, column 3 (mask concentration): \'1,23\' is ambiguous: write 1.23 or 123.' },
+    { text: 't\tchannel\tconc\n0\tambient\t5\n1,5\tmask\t5', row: 3, column: 1, code: 'time-format', message: 'Row 3, column 1 (time): \'1,5\' is ambiguous: write 1.5 or 15.' },
     { text: 't,channel,conc\n0,outside,5', row: 2, column: 2, code: 'unknown-channel', message: 'Row 2, column 2: channel \'outside\' should be ambient or mask' },
     { text: 't,channel,conc\n5,mask,5\n4,mask,5', row: 3, column: 1, code: 'time-backwards', message: 'Row 3: time goes backwards (t = 4 s after 5 s on the mask channel); the reading was left out' },
     { text: 't,channel,conc\n0,mask,5\nsoon,mask,5', row: 3, column: 1, code: 'time-format', message: 'Row 3, column 1: time \'soon\' should be seconds from the start like the rows above' },
@@ -199,5 +204,41 @@ describe('continuous ambient', () => {
     expect(r.segments.map(s => s.ambientMean?.mean)).toEqual([1000, 3000])
     const result = computeFitTest({ protocol: parsed, passLevel: 100, ...segmentsToFitTestInputs(r.segments, parsed) })
     expect(result.ok && result.exercises.map(e => e.fitFactor?.value)).toEqual([500, 100])
+  })
+})
+
+describe('numbers in a count series follow the organization\'s decimal mark', () => {
+  // The rules of DOMAIN.md "Typing numbers" (common practice (no published source)); the values are derived by reading the text.
+  it.each([
+    { mark: 'point' as const, text: 't\tchannel\tconc\n0\tambient\t12,500\n1\tmask\t1,234', values: [12500, 1234], source: 'point: a comma groups thousands' },
+    { mark: 'point' as const, text: 't,channel,conc\n0,ambient,"12,500"\n1,mask,1.2E+03', values: [12500, 1200], source: 'quoted grouped thousands and scientific notation' },
+    { mark: 'comma' as const, text: 't;channel;conc\n0;ambient;12.500\n1;mask;1.234,5', values: [12500, 1234.5], source: 'comma: a point groups thousands' },
+    { mark: 'comma' as const, text: 't\tchannel\tconc\n0\tambient\t8123,4\n1,5\tmask\t0,75', values: [8123.4, 0.75], source: 'comma: decimal commas in times and concentrations' },
+    { mark: 'point' as const, text: 't,channel,conc\n0,ambient,12 500\n1,mask,−0', values: [12500, 0], source: 'spaces group digits; a Unicode minus zero is zero' }
+  ])('$source', ({ mark, text, values }) => {
+    const r = readCountSeries(text, { decimalMark: mark })
+    expect(r.issues.filter(i => i.severity === 'error')).toEqual([])
+    expect(r.readings.map(x => x.concentration)).toEqual(values)
+  })
+
+  it('reads "1.234" as 1.234 with a point and as 1234 with a comma, never by guessing from the delimiter', () => {
+    // Derived: the same text, two marks (DOMAIN.md "Typing numbers").
+    const text = 't;channel;conc\n0;mask;1.234'
+    expect(readCountSeries(text, { decimalMark: 'point' }).readings[0]!.concentration).toBe(1.234)
+    expect(readCountSeries(text, { decimalMark: 'comma' }).readings[0]!.concentration).toBe(1234)
+  })
+
+  it('gives the same value on the fast path as the one reader does', () => {
+    // Derived: every cell a counter writes must read exactly as a typed cell reads.
+    const random = mulberry32(8)
+    for (let i = 0; i < 300; i++) {
+      const value = Number((random() * 10 ** Math.floor(random() * 7)).toFixed(Math.floor(random() * 5)))
+      for (const mark of ['point', 'comma'] as const) {
+        const cell = mark === 'comma' ? String(value).replace('.', ',') : String(value)
+        const tab = readCountSeries(`t\tchannel\tconc\n0\tmask\t${cell}`, { decimalMark: mark })
+        const reader = readTypedNumber(cell, { decimalMark: mark })
+        expect(reader.ok && tab.readings[0]!.concentration === reader.value, `${cell} (${mark})`).toBe(true)
+      }
+    }
   })
 })

@@ -1,6 +1,7 @@
 import { and, eq } from 'drizzle-orm'
 import { updateFitTestSchema } from '#shared/utils/fit-test-schemas'
 import { idParamSchema } from '#shared/utils/user-schemas'
+import { definedOnly } from '#shared/utils/patch-schema'
 
 export default defineEventHandler(async (event) => {
   const caller = await requireRole(event, 'tester')
@@ -14,17 +15,23 @@ export default defineEventHandler(async (event) => {
   const refs = await resolveReferences(caller.organizationId, { ...before, counterId, respiratorSize: changes.respiratorSize ?? before.respiratorSize })
   const next = {
     ...before,
-    ...changes,
+    ...definedOnly(changes),
+    // Only the pre-test items and entry parts that were sent change.
+    preTest: { ...before.preTest, ...definedOnly(changes.preTest) },
+    entry: { ...before.entry, ...definedOnly(changes.entry) },
     counterId,
     sampleFlowCm3PerMin: refs.counter?.sampleFlowCm3PerMin ?? null,
     performedAt: changes.performedAt ? new Date(changes.performedAt) : before.performedAt,
     seriesText: changes.seriesText === undefined ? before.seriesText : changes.seriesText
   }
+  if (changes.maskUnitId !== undefined || changes.respiratorSize !== undefined) {
+    await assertMaskUnitChoice(caller.organizationId, { respiratorModelId: before.respiratorModelId, respiratorSize: next.respiratorSize, maskUnitId: next.maskUnitId, revision: before.revision })
+  }
   const { stored } = computeStoredResult(next, await findOrganization(caller.organizationId), refs.site.timeZone)
   const t = schema.fitTests
   const saved = await useDb().transaction(async (tx) => {
     const [row] = await tx.update(t).set({
-      respiratorSize: next.respiratorSize, counterId: next.counterId, sampleFlowCm3PerMin: next.sampleFlowCm3PerMin,
+      respiratorSize: next.respiratorSize, maskUnitId: next.maskUnitId, counterId: next.counterId, sampleFlowCm3PerMin: next.sampleFlowCm3PerMin,
       performedAt: next.performedAt, preTest: next.preTest, entry: next.entry,
       seriesText: next.seriesText, seriesSha256: sha256OrNull(next.seriesText), ...stored, version: before.version + 1
     }).where(and(eq(t.id, id), eq(t.version, version), eq(t.status, 'draft'))).returning()

@@ -1,6 +1,6 @@
 import { and, eq } from 'drizzle-orm'
 import { createFitTestSchema } from '#shared/utils/fit-test-schemas'
-import { blankExerciseEntries } from '#shared/utils/fit-test-evaluate'
+import { blankExerciseEntries, localDate } from '#shared/utils/fit-test-evaluate'
 
 export default defineEventHandler(async (event) => {
   const caller = await requireRole(event, 'tester')
@@ -10,8 +10,11 @@ export default defineEventHandler(async (event) => {
   if (existing[0]) return fitTestView(caller, await findFitTest(caller.organizationId, existing[0].id))
 
   const refs = await resolveReferences(caller.organizationId, input)
-  const protocol = protocolFor(input.protocolKey, input.kind)
+  await assertMaskUnitChoice(caller.organizationId, input)
   const org = await findOrganization(caller.organizationId)
+  const protocol = protocolFor(input.protocolKey, input.kind, org)
+  const performedAt = input.performedAt ? new Date(input.performedAt) : new Date()
+  const clearanceAtStart = await clearanceAtStartFor(org, refs.person.id, refs.model.respiratorClass, localDate(performedAt, refs.site.timeZone), input.clearanceReason)
   const draft = {
     organizationId: caller.organizationId,
     recordId: crypto.randomUUID(),
@@ -26,10 +29,12 @@ export default defineEventHandler(async (event) => {
     respiratorModel: refs.model.model,
     respiratorClass: refs.model.respiratorClass,
     respiratorSize: input.respiratorSize,
+    maskUnitId: input.maskUnitId,
     protocolKey: input.protocolKey,
     protocol,
     sampleFlowCm3PerMin: refs.counter?.sampleFlowCm3PerMin ?? null,
-    performedAt: input.performedAt ? new Date(input.performedAt) : new Date(),
+    performedAt,
+    clearanceAtStart,
     preTest: input.preTest,
     entry: input.entry ?? { mode: input.kind === 'qualitative' ? 'qualitative' as const : 'grid' as const, exercises: protocol ? blankExerciseEntries(protocol) : [], wholeTestAmbient: null, seriesOffsetSeconds: 0, qualitative: null },
     seriesText: input.seriesText ?? null

@@ -22,6 +22,7 @@ export default defineEventHandler(async (event) => {
       performedAt,
       performedBy: caller.id,
       passLevelIsDefault: plan.level.isDefault,
+      passed: plan.result.passed === true,
       notes: input.notes
     }).returning({ id: schema.headformTests.id })
     await writeAudit(tx, caller, { entityType: 'headform-test', entityId: row!.id, action: 'recorded', after: { ...plan.raw, maskUnitId: plan.unit.id, benchRigId: plan.rig.id, passed: plan.result.passed, covered: coverage.covered } })

@@ -1,20 +1,28 @@
-import { and, desc, eq } from 'drizzle-orm'
-import { personFitStatus } from '#shared/utils/person-schemas'
+import { and, eq } from 'drizzle-orm'
 
-/** A wearer's own standing: their latest passing record, its due date and fit card. */
+/** A wearer's own standing: every respirator they are fitted for, each with its due date and fit card. */
 export default defineEventHandler(async (event) => {
   const caller = await requireRole(event, 'wearer')
   const p = schema.people
   const [person] = await useDb().select().from(p).where(and(eq(p.organizationId, caller.organizationId), eq(p.userId, caller.id)))
   if (!person) return { linked: false as const }
-  const t = schema.fitTests
-  const [latest] = await useDb().select().from(t)
-    .where(and(eq(t.organizationId, caller.organizationId), eq(t.personId, person.id), eq(t.status, 'finished'), eq(t.passed, true)))
-    .orderBy(desc(t.performedAt)).limit(1)
+  const standing = (await loadStandings(caller.organizationId, todayUtc(), [person.id]))(person.id)
   return {
     linked: true as const,
     fullName: person.fullName,
-    status: personFitStatus(latest?.dueOn ?? null, todayUtc()),
-    latest: latest ? { id: latest.id, performedAt: latest.performedAt, dueOn: latest.dueOn, respirator: `${latest.respiratorMake} ${latest.respiratorModel}`, size: latest.respiratorSize } : null
+    status: standing.status,
+    nextDueOn: standing.nextDueOn,
+    clearance: { status: standing.clearance.status, validUntil: standing.clearance.validUntil },
+    respirators: standing.respirators.map(r => ({
+      key: r.respiratorKey,
+      respirator: `${r.make} ${r.model}`,
+      size: r.lastPass?.size ?? r.size,
+      status: r.status,
+      dueOn: r.dueOn,
+      testedOn: r.lastPass?.testedOn ?? null,
+      imported: r.lastPass?.source === 'imported',
+      // A card only for a Sealwright pass that still stands; a later failure withdraws it from view.
+      fitTestId: r.status !== 'failed' && r.lastPass?.source === 'sealwright' ? r.lastPass.fitTestId : null
+    }))
   }
 })

@@ -5,8 +5,11 @@ import { idParamSchema } from '#shared/utils/user-schemas'
 export default defineEventHandler(async (event) => {
   const caller = await requireRole(event, 'tester')
   const { id } = parseParams(event, idParamSchema)
-  const changes = await parseBody(event, updatePersonSchema)
+  const parsed = await parseBody(event, updatePersonSchema)
+  // Only the fields the body carries change; everything else stays as it was.
+  const changes = Object.fromEntries(Object.entries(parsed).filter(([, v]) => v !== undefined)) as typeof parsed
   const before = await findPerson(caller.organizationId, id)
+  if (Object.keys(changes).length === 0) return before
   await assertSiteOf(caller.organizationId, changes.siteId)
   const p = schema.people
   return useDb().transaction(async (tx) => {

@@ -18,6 +18,8 @@ export default defineEventHandler(async (event) => {
   await useDb().transaction(async (tx) => {
     await tx.update(schema.users).set(changes)
       .where(and(eq(schema.users.organizationId, caller.organizationId), eq(schema.users.id, id)))
+    // Deactivation ends every session for good: reactivating later does not revive old cookies.
+    if (changes.active === false && before.active) await endAllSessions(tx, id)
     await writeAudit(tx, caller, {
       entityType: 'user', entityId: id, action: 'updated',
       before: { displayName: before.displayName, role: before.role, active: before.active },

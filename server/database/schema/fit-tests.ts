@@ -4,12 +4,22 @@ import type { FitTestEntry, PreTestChecks } from '../../../shared/utils/fit-test
 import type { Protocol } from '../../../shared/utils/compute'
 import { id, timestamps } from './columns'
 import { counters } from './equipment'
+import { maskUnits } from './masks'
 import { organizations, sites } from './organizations'
 import { people } from './people'
 import { respiratorModels } from './respirators'
 import { users } from './users'
 
-export const FIT_TEST_STATUSES = ['draft', 'finished', 'superseded', 'withdrawn'] as const
+export const FIT_TEST_STATUSES = ['draft', 'finished', 'superseded', 'withdrawn', 'discarded'] as const
+
+/** What the start of a test found about medical clearance, kept on the record and shown with the result. */
+export interface ClearanceAtStart {
+  onFile: boolean
+  clearanceId: string | null
+  validUntil: string | null
+  /** Why the tester went ahead without a current clearance covering this respirator class. */
+  reason: string | null
+}
 
 /**
  * One revision of a fit-test record. All revisions of a record share `recordId`; a finished
@@ -38,6 +48,8 @@ export const fitTests = pgTable('fit_tests', {
   respiratorModel: text().notNull(),
   respiratorClass: text().notNull(),
   respiratorSize: text().notNull(),
+  /** The serial-numbered unit the wearer used, when the model's units are tracked. */
+  maskUnitId: uuid().references(() => maskUnits.id, { onDelete: 'restrict' }),
 
   kind: text().$type<'quantitative' | 'qualitative'>().notNull().default('quantitative'),
   protocolKey: text().notNull(),
@@ -60,6 +72,11 @@ export const fitTests = pgTable('fit_tests', {
   finishedAt: timestamp({ withTimezone: true }),
   finishedByUserId: uuid().references(() => users.id, { onDelete: 'restrict' }),
   withdrawnReason: text(),
+  /** A draft started by mistake is discarded with a reason (audited), never deleted. */
+  discardedReason: text(),
+  /** The failed record this test retests. */
+  retestOfRecordId: uuid(),
+  clearanceAtStart: jsonb().$type<ClearanceAtStart>(),
   ...timestamps
 }, table => [
   index('fit_tests_organization_performed_idx').on(table.organizationId, table.performedAt),
@@ -69,16 +86,23 @@ export const fitTests = pgTable('fit_tests', {
   uniqueIndex('fit_tests_idempotency_unique').on(table.organizationId, table.idempotencyKey)
 ])
 
-/** A wearer's fit card: an unguessable token that a public page verifies. One per record. */
+/**
+ * A wearer's fit card: an unguessable token that a public page verifies. One per finished, passing
+ * revision, so a card printed before a correction verifies as superseded rather than showing the
+ * corrected data under the old print. Cards made before revisions had their own (`fitTestId`
+ * null) stand for their record's current revision.
+ */
 export const fitCards = pgTable('fit_cards', {
   id: id(),
   organizationId: uuid().notNull().references(() => organizations.id, { onDelete: 'cascade' }),
   recordId: uuid().notNull(),
+  fitTestId: uuid().references(() => fitTests.id, { onDelete: 'cascade' }),
   token: text().notNull(),
   createdAt: timestamp({ withTimezone: true }).notNull().defaultNow()
 }, table => [
   uniqueIndex('fit_cards_token_unique').on(table.token),
-  uniqueIndex('fit_cards_record_unique').on(table.recordId)
+  index('fit_cards_record_idx').on(table.recordId),
+  uniqueIndex('fit_cards_fit_test_unique').on(table.fitTestId)
 ])
 
 export const fitTestsRelations = relations(fitTests, ({ one }) => ({

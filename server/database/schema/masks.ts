@@ -45,6 +45,8 @@ export const maskUnitEvents = pgTable('mask_unit_events', {
   toState: text().$type<MaskUnitState>().notNull(),
   reason: text().notNull(),
   headformTestId: uuid(),
+  /** A return to service that a program admin allowed without a passing headform test since the hold. */
+  override: boolean().notNull().default(false),
   actorUserId: uuid().references(() => users.id, { onDelete: 'set null' }),
   at: timestamp({ withTimezone: true }).notNull().defaultNow()
 }, table => [
@@ -71,6 +73,12 @@ export const headformTests = pgTable('headform_tests', {
   passLevel: doublePrecision().notNull(),
   passLevelIsDefault: boolean().notNull(),
   subChecks: jsonb().$type<Record<string, boolean>>().notNull().default({}),
+  /**
+   * The verdict as recomputed when the test was saved, kept only so queries can find the last
+   * passing test (the retest interval runs from a pass, never from a failure). Null on tests saved
+   * before it was kept: those never count as a pass.
+   */
+  passed: boolean(),
   notes: text().notNull().default(''),
   ...timestamps
 }, table => [

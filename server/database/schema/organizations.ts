@@ -1,6 +1,8 @@
 import { relations } from 'drizzle-orm'
 import { index, jsonb, pgTable, text, uniqueIndex, uuid } from 'drizzle-orm/pg-core'
-import type { PassLevelOverrides } from '../../../shared/utils/compute'
+import type { PassLevelOverrides, Protocol } from '../../../shared/utils/compute'
+import type { DecimalMark } from '../../../shared/utils/number-reader'
+import type { ReminderSettings } from '../../../shared/utils/oversight'
 import { id, timestamps } from './columns'
 
 export interface OrganizationSettings {
@@ -10,6 +12,14 @@ export interface OrganizationSettings {
   uncoveredResults?: 'flag' | 'refuse'
   /** Pass levels raised above the rule set (never lower), as the computation module reads them. */
   passLevelOverrides?: PassLevelOverrides
+  /** Reminder e-mail: lead time, repeat interval once overdue, which roles get site digests. */
+  reminders?: Partial<ReminderSettings>
+  /** A test started with no current medical clearance covering the respirator class. */
+  clearanceAtStart?: 'flag' | 'require-reason' | 'refuse'
+  /** How people here write a decimal: point (default) or comma; the other mark only groups thousands. */
+  decimalMark?: DecimalMark
+  /** Protocols an admin added, checked with the computation module's protocol schema. */
+  customProtocols?: Protocol[]
 }
 
 export const organizations = pgTable('organizations', {

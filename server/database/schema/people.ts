@@ -19,6 +19,8 @@ export const people = pgTable('people', {
   medicalClearanceOn: date({ mode: 'string' }),
   medicalClearanceStatus: text().$type<typeof MEDICAL_CLEARANCE_STATUSES[number]>().notNull().default('pending'),
   notes: text(),
+  /** The wearer asked for no reminder e-mail; they still appear in every due list. */
+  reminderOptOut: boolean().notNull().default(false),
   active: boolean().notNull().default(true),
   ...timestamps
 }, table => [

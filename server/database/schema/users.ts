@@ -1,5 +1,5 @@
 import { relations } from 'drizzle-orm'
-import { boolean, index, integer, pgEnum, pgTable, text, timestamp, uniqueIndex, uuid } from 'drizzle-orm/pg-core'
+import { bigint, boolean, index, integer, pgEnum, pgTable, text, timestamp, uniqueIndex, uuid, varchar } from 'drizzle-orm/pg-core'
 import { ROLES } from '../../../shared/utils/roles'
 import { id, timestamps } from './columns'
 import { organizations } from './organizations'
@@ -9,7 +9,10 @@ export const userRole = pgEnum('user_role', ROLES)
 export const users = pgTable('users', {
   id: id(),
   organizationId: uuid().notNull().references(() => organizations.id, { onDelete: 'cascade' }),
-  /** Stored lower-case; unique across the whole service because it is the sign-in name. */
+  /**
+   * Stored lower-case; unique within an organization. One person (a consultant fit tester, say)
+   * may hold accounts in several organizations under one address; the password picks the account.
+   */
   email: text().notNull(),
   /** Null until an invited user sets a password. */
   passwordHash: text(),
@@ -17,9 +20,15 @@ export const users = pgTable('users', {
   role: userRole().notNull(),
   active: boolean().notNull().default(true),
   lastSignInAt: timestamp({ withTimezone: true }),
+  /**
+   * Every session cookie carries the version it was issued under; raising it ends all of this
+   * user's sessions at once (sign-out everywhere, password reset, deactivation).
+   */
+  sessionVersion: integer().notNull().default(1),
   ...timestamps
 }, table => [
-  uniqueIndex('users_email_unique').on(table.email),
+  uniqueIndex('users_organization_email_unique').on(table.organizationId, table.email),
+  index('users_email_idx').on(table.email),
   index('users_organization_idx').on(table.organizationId)
 ])
 
@@ -38,12 +47,14 @@ export const authTokens = pgTable('auth_tokens', {
   index('auth_tokens_user_idx').on(table.userId)
 ])
 
-/** Failed sign-ins counted per e-mail and per client address, for throttling. Not tenant data. */
-export const signInFailures = pgTable('sign_in_failures', {
-  key: text().primaryKey(),
-  failures: integer().notNull().default(0),
-  windowStartedAt: timestamp({ withTimezone: true }).notNull().defaultNow(),
-  lockedUntil: timestamp({ withTimezone: true })
+/**
+ * Sign-in and reset attempt counters kept by rate-limiter-flexible (its PostgreSQL store, column
+ * names as it expects), shared by every app instance. Not tenant data: keys are hashed.
+ */
+export const rateLimits = pgTable('rate_limits', {
+  key: varchar({ length: 255 }).primaryKey(),
+  points: integer().notNull().default(0),
+  expire: bigint({ mode: 'number' })
 })
 
 export const usersRelations = relations(users, ({ one }) => ({

@@ -5,6 +5,8 @@ import { errorIssue, warningIssue } from './errors'
 import type { ExerciseInput, WholeTestAmbient } from './fit-test'
 import type { PhaseWindow, Protocol } from './protocols'
 import { protocolTimeline } from './protocols'
+import { readTypedNumber } from '../number-reader'
+import type { DecimalMark, NumberReading } from '../number-reader'
 
 // Count series: readings pasted or uploaded as text, in a column layout of Sealwright's own.
 //
@@ -21,7 +23,9 @@ import { protocolTimeline } from './protocols'
 //   ambient, mask   in the wide layout: the concentration on each channel; either may be blank
 //
 // Comma, tab or semicolon separated (detected from the first lines; papaparse then reads the
-// text, quotes included). With semicolons a decimal comma is accepted.
+// text, quotes included). Numbers are read with the organization's decimal mark (`decimalMark`,
+// point by default): with a point, a comma only groups thousands ("12,500"); with a comma, the
+// mirror image, and a comma-separated file must quote its decimals or use tabs or semicolons.
 // The header line is optional; column names may carry a unit in brackets ("conc (1/cm³)").
 // Without a header the columns are t,channel,conc when the second cell is a word, otherwise
 // t,ambient,mask. Rows and columns in issues are 1-based, as the user sees them.
@@ -42,6 +46,8 @@ export interface ReadSeriesOptions {
   startTime?: string
   // longest pause between readings before a gap is reported; default 2 × the detected period
   maxGapSeconds?: number
+  // the organization's decimal mark; default point
+  decimalMark?: DecimalMark
 }
 
 export interface ReadSeriesResult {
@@ -65,14 +71,15 @@ const MASK_NAMES = new Set(['mask', 'in-mask', 'inmask', 'in mask', 'm'])
 
 const POWERS_OF_TEN = [1, 1e1, 1e2, 1e3, 1e4, 1e5, 1e6, 1e7, 1e8, 1e9, 1e10, 1e11, 1e12, 1e13, 1e14, 1e15]
 
-// A plain decimal number as a user writes it: 12, -3.5, .5, 1e3. Rejects what JavaScript's
-// Number() would also take but a user never means (0x1f, Infinity, empty text).
-function parseNumber(cell: string, decimalComma: boolean): number | null {
+// A concentration or time as a person writes it, read by the one number reader with the
+// organization's decimal mark (DOMAIN.md "Typing numbers"); never guessed from the delimiter.
+// Fast path for what a counter writes — an optional sign, up to 15 digits and at most one decimal
+// mark — where digits / 10^k is exact-then-rounded once, so it equals Number(text) (both are
+// correctly rounded) and what the reader returns. Anything else (grouped thousands, exponents,
+// refusals) goes to the reader, whose message says what it read and how to write it.
+function parseNumber(cell: string, decimalCode: number): NumberReading | number {
   const length = cell.length
   const c0 = cell.charCodeAt(0)
-  if (!((c0 >= 48 && c0 <= 57) || c0 === 43 || c0 === 45 || c0 === 46)) return null
-  // Fast path for up to 15 significant digits without exponent: digits / 10^k is exact-then-
-  // rounded once, so it equals Number(text) (both are correctly rounded).
   let i = c0 === 43 || c0 === 45 ? 1 : 0
   let mantissa = 0
   let digits = 0
@@ -83,7 +90,7 @@ function parseNumber(cell: string, decimalComma: boolean): number | null {
       mantissa = mantissa * 10 + (c - 48)
       digits++
       if (fraction >= 0) fraction++
-    } else if ((c === 46 || (c === 44 && decimalComma)) && fraction < 0) {
+    } else if (c === decimalCode && fraction < 0) {
       fraction = 0
     } else {
       break
@@ -91,16 +98,15 @@ function parseNumber(cell: string, decimalComma: boolean): number | null {
   }
   if (i === length && digits > 0 && digits <= 15) {
     const value = fraction > 0 ? mantissa / POWERS_OF_TEN[fraction]! : mantissa
-    return c0 === 45 ? -value : value
+    return c0 === 45 && value !== 0 ? -value : value
   }
-  const text = decimalComma && cell.indexOf(',') >= 0 ? cell.replace(',', '.') : cell
-  const value = +text
-  if (value !== value || value === Infinity || value === -Infinity) return null
-  if (c0 === 48 && text.length > 1) {
-    const c1 = text.charCodeAt(1) | 32
-    if (c1 === 120 || c1 === 98 || c1 === 111) return null
-  }
-  return value
+  return readTypedNumber(cell, { decimalMark: decimalCode === 44 ? 'comma' : 'point' })
+}
+
+function numberOrNull(cell: string, decimalCode: number): number | null {
+  const read = parseNumber(cell, decimalCode)
+  if (typeof read === 'number') return read
+  return read.ok ? read.value : null
 }
 
 function parseChannel(cell: string): Channel | null {
@@ -116,8 +122,8 @@ function headerName(cell: string): string {
   return cell.trim().toLowerCase().replace(/\s*[([].*$/, '').trim()
 }
 
-function isTimeCell(cell: string, decimalComma: boolean): boolean {
-  return parseNumber(cell, decimalComma) !== null || ISO_TIME.test(cell)
+function isTimeCell(cell: string, decimalCode: number): boolean {
+  return numberOrNull(cell, decimalCode) !== null || ISO_TIME.test(cell)
 }
 
 const DELIMITERS = ['\t', ';', ','] as const
@@ -211,9 +217,9 @@ function columnsFromHeader(row: string[], rowNumber: number, forced: SeriesLayou
   return cols
 }
 
-function columnsWithoutHeader(row: string[], decimalComma: boolean, forced: SeriesLayout | undefined): Columns {
+function columnsWithoutHeader(row: string[], decimalCode: number, forced: SeriesLayout | undefined): Columns {
   const second = (row[1] ?? '').trim()
-  const layout = forced ?? (second === '' || parseNumber(second, decimalComma) !== null ? 'wide' : 'long')
+  const layout = forced ?? (second === '' || numberOrNull(second, decimalCode) !== null ? 'wide' : 'long')
   return layout === 'long'
     ? { layout, time: 0, channel: 1, conc: 2, ambient: -1, mask: -1 }
     : { layout, time: 0, channel: -1, conc: -1, ambient: 1, mask: 2 }
@@ -249,7 +255,7 @@ export function readCountSeries(input: unknown, options: ReadSeriesOptions = {})
     return empty
   }
   const delimiter = parsed.meta.delimiter
-  const decimalComma = delimiter === ';'
+  const decimalCode = options.decimalMark === 'comma' ? 44 : 46
   for (const e of parsed.errors) {
     if (e.type === 'Quotes') {
       const row = (e.row ?? 0) + 1
@@ -266,14 +272,14 @@ export function readCountSeries(input: unknown, options: ReadSeriesOptions = {})
   }
 
   const firstRow = rows[first]!
-  const hasHeader = !isTimeCell((firstRow[0] ?? '').trim(), decimalComma)
+  const hasHeader = !isTimeCell((firstRow[0] ?? '').trim(), decimalCode)
   let cols: Columns | null
   let dataStart: number
   if (hasHeader) {
     cols = columnsFromHeader(firstRow, first + 1, options.layout, issues)
     dataStart = first + 1
   } else {
-    cols = columnsWithoutHeader(firstRow, decimalComma, options.layout)
+    cols = columnsWithoutHeader(firstRow, decimalCode, options.layout)
     dataStart = first
     if (firstRow.length < 3 && cols.layout === 'long') {
       issues.push(errorIssue('unknown-layout', `Row ${first + 1}: expected three columns, t, channel and conc (or t, ambient, mask)`, { row: first + 1 }))
@@ -312,11 +318,12 @@ export function readCountSeries(input: unknown, options: ReadSeriesOptions = {})
   }
 
   const readConc = (cell: string, row: number, column: number, label: string): number | null => {
-    const value = parseNumber(cell, decimalComma)
-    if (value === null) {
-      issues.push(errorIssue('not-a-number', `Row ${row}, column ${column}: ${label} '${cell}' is not a number`, { row, column }))
+    const read = parseNumber(cell, decimalCode)
+    if (typeof read !== 'number' && !read.ok) {
+      issues.push(errorIssue('not-a-number', `Row ${row}, column ${column} (${label}): ${read.message}`, { row, column }))
       return null
     }
+    const value = typeof read === 'number' ? read : read.value
     if (value < 0) {
       issues.push(errorIssue('negative', `Row ${row}, column ${column}: ${label} cannot be negative (${cell})`, { row, column }))
       return null
@@ -336,7 +343,8 @@ export function readCountSeries(input: unknown, options: ReadSeriesOptions = {})
       continue
     }
     let seconds: number | null = null
-    const numeric = parseNumber(timeCell, decimalComma)
+    const timeRead = parseNumber(timeCell, decimalCode)
+    const numeric = typeof timeRead === 'number' ? timeRead : timeRead.ok ? timeRead.value : null
     if (numeric !== null && timeFormat !== 'iso') {
       seconds = numeric
       timeFormat = 'seconds'
@@ -347,6 +355,10 @@ export function readCountSeries(input: unknown, options: ReadSeriesOptions = {})
         seconds = (ms - startMs) / 1000
         timeFormat = 'iso'
       }
+    }
+    if (seconds === null && timeFormat !== 'iso' && typeof timeRead !== 'number' && !timeRead.ok && /^[+\-\u2212]?[\d.,]/.test(timeCell) && !ISO_TIME.test(timeCell)) {
+      issues.push(errorIssue('time-format', `Row ${row}, column ${cols.time + 1} (time): ${timeRead.message}`, { row, column: cols.time + 1 }))
+      continue
     }
     if (seconds === null) {
       const expected = timeFormat === 'iso' ? 'an ISO-8601 timestamp like the rows above' : timeFormat === 'seconds' ? 'seconds from the start like the rows above' : 'seconds from the start or an ISO-8601 timestamp'

@@ -1,27 +1,32 @@
-import { eq } from 'drizzle-orm'
+import { and, eq, gt, isNull } from 'drizzle-orm'
 import { setPasswordSchema, tokenParamSchema } from '#shared/utils/user-schemas'
+
+const SPENT = 'This link has expired or was already used. Ask for a new one.'
 
 export default defineEventHandler(async (event) => {
   const { token } = parseParams(event, tokenParamSchema)
   const { password } = await parseBody(event, setPasswordSchema)
-  const row = await findLiveToken(token)
-  if (!row || !row.user.active) {
-    throw httpError(404, 'This link has expired or was already used. Ask for a new one.')
-  }
   const passwordHash = await hashPassword(password)
-  const user = row.user
-  await useDb().transaction(async (tx) => {
-    // Spend every open link of this user, not just this one: one password change ends them all.
-    await tx.update(schema.authTokens).set({ usedAt: new Date() }).where(eq(schema.authTokens.userId, user.id))
-    await tx.update(schema.users).set({ passwordHash, lastSignInAt: new Date() }).where(eq(schema.users.id, user.id))
-    await writeAudit(tx, { id: user.id, organizationId: user.organizationId }, {
-      entityType: 'user', entityId: user.id, action: row.token.purpose === 'invitation' ? 'invitation-accepted' : 'password-reset'
+  const t = schema.authTokens
+
+  const user = await useDb().transaction(async (tx) => {
+    // Spending the link is the first statement: of several uses at once, exactly one gets the row.
+    const [spent] = await tx.update(t).set({ usedAt: new Date() })
+      .where(and(eq(t.tokenHash, hashToken(token)), isNull(t.usedAt), gt(t.expiresAt, new Date())))
+      .returning({ userId: t.userId, purpose: t.purpose })
+    if (!spent) throw httpError(404, SPENT)
+    const [owner] = await tx.update(schema.users).set({ passwordHash, lastSignInAt: new Date() })
+      .where(and(eq(schema.users.id, spent.userId), eq(schema.users.active, true)))
+      .returning()
+    if (!owner) throw httpError(404, SPENT)
+    // One password change spends every other open link and ends every session of this user.
+    await tx.update(t).set({ usedAt: new Date() }).where(and(eq(t.userId, owner.id), isNull(t.usedAt)))
+    const sessionVersion = await endAllSessions(tx, owner.id)
+    await writeAudit(tx, { id: owner.id, organizationId: owner.organizationId }, {
+      entityType: 'user', entityId: owner.id, action: spent.purpose === 'invitation' ? 'invitation-accepted' : 'password-reset'
     })
+    return { ...owner, sessionVersion: sessionVersion ?? owner.sessionVersion }
   })
-  await clearSignInFailures(user.email)
-  await setUserSession(event, {
-    user: { id: user.id, organizationId: user.organizationId, role: user.role, email: user.email, displayName: user.displayName },
-    signedInAt: new Date().toISOString()
-  })
+  await startSession(event, user)
   return { id: user.id, role: user.role }
 })

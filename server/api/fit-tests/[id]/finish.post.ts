@@ -1,6 +1,7 @@
 import { and, eq, ne } from 'drizzle-orm'
 import { finishFitTestSchema } from '#shared/utils/fit-test-schemas'
 import { idParamSchema } from '#shared/utils/user-schemas'
+import { cardDecision, coverageFlagOf } from '#shared/utils/fit-card-rules'
 
 export default defineEventHandler(async (event) => {
   const caller = await requireRole(event, 'tester')
@@ -14,12 +15,13 @@ export default defineEventHandler(async (event) => {
   const { evaluation, stored } = computeStoredResult(row, org, site.timeZone)
   const firstError = evaluation?.result.issues.find(i => i.severity === 'error')?.message ?? evaluation?.seriesIssues.find(i => i.severity === 'error')?.message
   assertReadyToFinish(row, evaluation ? evaluation.result.ok : true, firstError)
-  if (row.counterId && org.settings.uncoveredResults === 'refuse') {
-    const coverage = await findCoverage(caller.organizationId, { counterId: row.counterId, siteId: row.siteId, performedAt: row.performedAt })
-    if (!coverage.covered) {
-      throw httpError(409, `Your program refuses results no readiness check covers: ${coverage.message}`, { coverage })
-    }
+  const coverage = row.counterId ? await findCoverage(caller.organizationId, { counterId: row.counterId, siteId: row.siteId, performedAt: row.performedAt }) : null
+  if (coverage && !coverage.covered && org.settings.uncoveredResults === 'refuse') {
+    throw httpError(409, `Your program refuses results no readiness check covers: ${coverage.message}`, { coverage })
   }
+  await assertUsableMaskUnit(caller.organizationId, row)
+  // A failed test gets no card and so no verification link.
+  const card = cardDecision({ status: 'finished', passed: stored.passed, coverage: coverageFlagOf(coverage), uncoveredResults: org.settings.uncoveredResults })
 
   const t = schema.fitTests
   await useDb().transaction(async (tx) => {
@@ -34,7 +36,7 @@ export default defineEventHandler(async (event) => {
     // A corrected revision replaces the one it corrects; the earlier stays readable as superseded.
     await tx.update(t).set({ status: 'superseded' })
       .where(and(eq(t.recordId, row.recordId), ne(t.id, id), eq(t.status, 'finished')))
-    await ensureCard(tx, caller.organizationId, row.recordId)
+    if (card.issue) await ensureCard(tx, caller.organizationId, row)
     await recordExerciseResults(tx, caller.organizationId, id, evaluation?.result)
     await writeAudit(tx, caller, { entityType: 'fit-test', entityId: id, action: 'finished', after: { revision: row.revision, overallFitFactor: stored.overallFitFactor, passed: stored.passed, passLevel: stored.passLevel, dueOn: stored.dueOn } })
   })

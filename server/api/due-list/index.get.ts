@@ -1,0 +1,8 @@
+import { dueListQuerySchema } from '#shared/utils/oversight-schemas'
+
+export default defineEventHandler(async (event) => {
+  const caller = await requireRole(event, 'tester', 'reviewer', 'trainer')
+  const q = parseQuery(event, dueListQuerySchema)
+  const today = todayUtc()
+  return { today, rows: await dueList(caller.organizationId, today, q) }
+})

@@ -1,0 +1,8 @@
+import { remindNowSchema } from '#shared/utils/oversight-schemas'
+
+/** What "remind now" would send to each chosen person, and who would be skipped and why. */
+export default defineEventHandler(async (event) => {
+  const caller = await requireRole(event, 'tester')
+  const { personIds } = await parseBody(event, remindNowSchema)
+  return remindNow(caller, personIds, todayUtc(), false)
+})

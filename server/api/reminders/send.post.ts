@@ -1,0 +1,9 @@
+import { remindNowSchema } from '#shared/utils/oversight-schemas'
+
+export default defineEventHandler(async (event) => {
+  const caller = await requireRole(event, 'tester')
+  const { personIds } = await parseBody(event, remindNowSchema)
+  const result = await remindNow(caller, personIds, todayUtc(), true)
+  await writeAudit(useDb(), caller, { entityType: 'reminder', entityId: 'manual', action: 'sent', after: { sent: result.sent, personIds } })
+  return result
+})
