@@ -40,6 +40,16 @@ export async function createEstate(org: FixtureOrganization): Promise<Estate> {
   const draft = ok(await admin.post('/api/fit-tests', newTest()), 'draft') as { id: string }
   const toFinish = ok(await admin.post('/api/fit-tests', newTest(standardEntry([250, 400, 300, 350, 280, 260, 320]))), 'test') as { id: string, version: number }
   const finished = ok(await admin.post(`/api/fit-tests/${toFinish.id}/finish`, { version: toFinish.version }), 'finish') as { id: string }
+  const draftToDiscard = ok(await admin.post('/api/fit-tests', newTest()), 'draft to discard') as { id: string }
+  // Invented fit factors well under the half-mask pass level of 100: a failed record to retest.
+  const toFail = ok(await admin.post('/api/fit-tests', newTest(standardEntry([20, 30, 25, 40, 30, 20, 35]))), 'failing test') as { id: string, version: number }
+  const failed = ok(await admin.post(`/api/fit-tests/${toFail.id}/finish`, { version: toFail.version }), 'finish failing test') as { id: string }
+  ok(await admin.post(`/api/people/${program.personId}/respirators`, { respiratorModelId: program.halfMaskId }), 'respirator assignment')
+  const protocolKey = `estate-${tag}`
+  ok(await admin.post('/api/protocols', {
+    key: protocolKey, name: `Estate protocol ${tag}`, source: 'Invented for the estate', ambientPlan: 'per-exercise',
+    exercises: [{ key: 'breathing', name: 'Normal breathing', durationSeconds: 60, counted: true, sampling: { ambientSeconds: 6, purgeSeconds: 4, maskSeconds: 40, closingAmbientSeconds: 0 } }]
+  }), 'custom protocol')
   const review = ok(await admin.post(`/api/fit-tests/${finished.id}/queries`, { question: 'Estate query: was the strap tension checked?' }), 'query') as { queries: { id: string }[] }
   // Invented exposure (50 ppm against a 100 ppm limit): hazard ratio 0.5, so any class is adequate.
   const assessment = (title: string) => ({
@@ -77,6 +87,8 @@ export async function createEstate(org: FixtureOrganization): Promise<Estate> {
       'practice-sets': practiceSet.id,
       'practice-tests': practiceTest.id,
       'queryId': review.queries[0]!.id,
+      'modelId': program.halfMaskId,
+      'key': protocolKey,
       'token': 'x'.repeat(43)
     },
     byRoute: {
@@ -90,7 +102,9 @@ export async function createEstate(org: FixtureOrganization): Promise<Estate> {
       'POST /api/exposure-assessments/:id/revisions': { 'exposure-assessments': signedAssessment.id },
       // Clearing a set removes its people and tests, so it gets a set of its own.
       'DELETE /api/practice-sets/:id': { 'practice-sets': setToClear.id },
-      'GET /api/insights/people/:id': { insights: program.personId }
+      'GET /api/insights/people/:id': { insights: program.personId },
+      'POST /api/fit-tests/:id/discard': { 'fit-tests': draftToDiscard.id },
+      'POST /api/fit-tests/:id/retest': { 'fit-tests': failed.id }
     }
   }
 }
