@@ -48,7 +48,10 @@ export async function createEstate(org: FixtureOrganization): Promise<Estate> {
   const protocolKey = `estate-${tag}`
   ok(await admin.post('/api/protocols', {
     key: protocolKey, name: `Estate protocol ${tag}`, source: 'Invented for the estate', ambientPlan: 'per-exercise',
-    exercises: [{ key: 'breathing', name: 'Normal breathing', durationSeconds: 60, counted: true, sampling: { ambientSeconds: 6, purgeSeconds: 4, maskSeconds: 40, closingAmbientSeconds: 6 } }]
+    exercises: [
+      { key: 'breathing', name: 'Normal breathing', durationSeconds: 60, counted: true, sampling: { ambientSeconds: 6, purgeSeconds: 4, maskSeconds: 40, closingAmbientSeconds: 0 } },
+      { key: 'talking', name: 'Talking', durationSeconds: 60, counted: true, sampling: { ambientSeconds: 6, purgeSeconds: 4, maskSeconds: 30, closingAmbientSeconds: 6 } }
+    ]
   }), 'custom protocol')
   const review = ok(await admin.post(`/api/fit-tests/${finished.id}/queries`, { question: 'Estate query: was the strap tension checked?' }), 'query') as { queries: { id: string }[] }
   // Invented exposure (50 ppm against a 100 ppm limit): hazard ratio 0.5, so any class is adequate.
