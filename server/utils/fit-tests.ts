@@ -134,7 +134,6 @@ export async function listRevisions(organizationId: string, recordId: string) {
     .from(t).where(and(eq(t.organizationId, organizationId), eq(t.recordId, recordId))).orderBy(asc(t.revision))
 }
 
-
 /** Gives a finished, passing revision its own card token (once). */
 export async function ensureCard(tx: Tx, organizationId: string, row: Pick<FitTestRow, 'id' | 'recordId'>) {
   await tx.insert(schema.fitCards).values({ organizationId, recordId: row.recordId, fitTestId: row.id, token: randomBytes(24).toString('base64url') }).onConflictDoNothing()
