@@ -170,7 +170,7 @@ describe('the fit-test CSV', () => {
     const person = (await testDb().insert(schema.people).values({ organizationId: org.id, siteId: program.siteId, fullName: 'Withdrawn Pass', medicalClearanceStatus: 'cleared', medicalClearanceOn: '2026-01-15' }).returning())[0]!
     const done = await finishedTest([500, 500, 500, 500, 500, 500, 500], { personId: person.id })
     expect(done.passed).toBe(true)
-    // Withdrawal is a program decision: a tester (or admin) withdraws, the reviewer reads the export.
+    // Withdrawal is a program decision for a tester or admin; a reviewer recommends it (DEVELOPERS.md).
     expect((await tester.post(`/api/fit-tests/${done.id}/withdraw`, { reason: 'Tested with the wrong counter.' })).status).toBe(200)
     const rows = parse((await reviewer.get(`/api/exports/fit-tests.csv?personId=${person.id}`)).body)
     expect(rows).toHaveLength(1)

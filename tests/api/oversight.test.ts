@@ -70,11 +70,12 @@ describe('people PATCH changes only the fields sent (issue 8, item 5)', () => {
     expect(after).toMatchObject({ jobTitle: 'Shift lead', medicalClearanceStatus: 'cleared', medicalClearanceOn: '2026-01-15', notes: 'Prefers size M', email: person.email, siteId: program.siteId, employeeNumber: person.employeeNumber })
   })
 
-  it('an empty body is refused with a sentence and changes nothing', async () => {
+  it('an empty body changes nothing and is refused with a sentence, not a server error', async () => {
     const person = await addPerson({ jobTitle: 'Operator' })
+    // Every PATCH that names nothing to change is refused the same way (DEVELOPERS.md, "A route").
     const reply = await tester.patch(`/api/people/${person.id}`, {})
     expect(reply.status).toBe(400)
-    expect(reply.body.message).toMatch(/nothing to change/i)
+    expect(reply.body.message).toMatch(/Nothing to change/)
     expect((await tester.get(`/api/people/${person.id}`)).body.jobTitle).toBe('Operator')
   })
 })
