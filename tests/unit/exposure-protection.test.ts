@@ -85,3 +85,44 @@ describe('the calculator form as typed', () => {
     expect(back.contaminants[0]!.exposure).toBe('12500')
   })
 })
+
+describe('the calculator reads with the organization\'s decimal mark', () => {
+  // The comma rules are the mirror image of the point rules (DOMAIN.md "Typing numbers").
+  it.each([
+    ['0,5', 0.5, 'DOMAIN.md "Typing numbers": comma is the decimal mark'],
+    ['1.250,5', 1250.5, 'DOMAIN.md "Typing numbers": point groups thousands in threes'],
+    ['12.500', 12500, 'DOMAIN.md "Typing numbers": point groups thousands in threes'],
+    ['81,25', 81.25, '29 CFR 1910.1000(d)(1)(i) worked example, written with a comma']
+  ])('with a comma, %s reads as %s (%s)', (text, value) => {
+    const r = readCalculatorNumber(text, 'comma')
+    expect(r.ok && r.value).toBe(value)
+  })
+
+  it.each(['1.5', '0.25'])('with a comma, %s is refused as ambiguous rather than read as a larger number', (text) => {
+    const r = readCalculatorNumber(text, 'comma')
+    expect(r.ok).toBe(false)
+    expect(!r.ok && r.message).toContain('ambiguous')
+  })
+
+  it('a whole form typed with commas reads, and a stored input comes back written with commas', async () => {
+    const { emptySubstance, readCalculatorDraft, draftFromInput } = await import('#shared/utils/exposure-draft')
+    // 29 CFR 1910.1000(d)(1)(i): 2 h at 150 ppm, 2 h at 75 ppm, 4 h at 50 ppm; hours typed with a comma.
+    const substance = {
+      ...emptySubstance(), name: 'Solvent A', mode: 'segments' as const, limit: '100',
+      segments: [{ concentration: '150', hours: '2,0' }, { concentration: '75', hours: '2' }, { concentration: '50', hours: '4,0' }]
+    }
+    const draft = { contaminants: [substance], additiveMixture: true, oxygenDeficient: false }
+    const read = readCalculatorDraft(draft, 'comma')
+    expect(read.readErrors).toEqual({})
+    const exposure = read.input.contaminants[0]!.exposure
+    expect(exposure.mode === 'segments' && exposure.segments.map(s => s.hours)).toEqual([2, 2, 4])
+    // The same text under a point is refused where it would otherwise change meaning.
+    const asPoint = readCalculatorDraft({ ...draft, contaminants: [{ ...substance, segments: [{ concentration: '150', hours: '0,5' }] }] }, 'point')
+    expect(asPoint.readErrors['contaminants.0.exposure.segments.0.hours']).toContain('ambiguous')
+
+    const single = readCalculatorDraft({ ...draft, contaminants: [{ ...emptySubstance(), exposure: '81,25', limit: '100' }] }, 'comma')
+    const back = draftFromInput(single.input, 'comma')
+    expect(back.contaminants[0]!.exposure).toBe('81,25')
+    expect(readCalculatorDraft(back, 'comma').input.contaminants[0]!.exposure).toEqual({ mode: 'single', value: 81.25, unit: 'ppm' })
+  })
+})
