@@ -16,7 +16,8 @@ export function assessmentError(statusCode: number, message: string, fieldErrors
   return httpError(statusCode, message, fieldErrors ? { fieldErrors } : undefined)
 }
 
-export async function ruleSetOf(organizationId: string): Promise<PassLevelRuleSetKey> {
+// Named apart from pass-levels.ts's `ruleSetOf(org)`: server utils share one auto-import namespace.
+export async function assessmentRuleSetOf(organizationId: string): Promise<PassLevelRuleSetKey> {
   const [org] = await useDb().select({ ruleSet: schema.organizations.ruleSet }).from(schema.organizations).where(eq(schema.organizations.id, organizationId))
   return org?.ruleSet === 'uk-hse' ? 'uk-hse' : 'us-osha'
 }
