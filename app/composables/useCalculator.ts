@@ -20,7 +20,8 @@ export interface CalculatorMeta {
 export function useCalculator(ruleSet: Ref<PassLevelRuleSetKey>) {
   const draft = useState<CalculatorDraft>('calculator-draft', () => ({ contaminants: [emptySubstance()], additiveMixture: true, oxygenDeficient: false }))
   const meta = useState<CalculatorMeta>('calculator-meta', () => ({ editingId: null, version: null, title: '', siteId: '', chosenClassKeys: [], rationale: '' }))
-  const read = computed(() => readCalculatorDraft(draft.value))
+  const decimalMark = useDecimalMark()
+  const read = computed(() => readCalculatorDraft(draft.value, decimalMark.value))
   const evaluation = computed(() => evaluateExposureAssessment({ ruleSet: ruleSet.value, ...read.value.input }))
   // Empty fields are not called missing until the user asks for a save: a fresh form is not an error.
   const showMissing = useState('calculator-show-missing', () => false)
@@ -42,5 +43,5 @@ export function useCalculator(ruleSet: Ref<PassLevelRuleSetKey>) {
     meta.value = { editingId: null, version: null, title: '', siteId: '', chosenClassKeys: [], rationale: '' }
   }
 
-  return { draft, meta, read, errors, warnings, result, reset, showMissing }
+  return { draft, meta, read, errors, warnings, result, reset, showMissing, decimalMark }
 }

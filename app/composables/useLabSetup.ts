@@ -1,28 +1,42 @@
 import type { LabField } from '#shared/utils/lab-setup'
-import { LEAK_PRESETS, checkLabField, hasLabQuery, decodeLabQuery, encodeLabQuery } from '#shared/utils/lab-setup'
+import { LEAK_PRESETS, checkLabField, hasLabQuery, decodeLabQuery, encodeLabQuery, rewriteLabNumbers } from '#shared/utils/lab-setup'
+import { plainTypedNumber } from '#shared/utils/number-reader'
 import { findBuiltInProtocol } from '#shared/utils/compute'
 import { useLabStore } from '~/stores/lab'
 
 /**
  * The lab's set-up for a page: taken from the link when it carries one, written back into the
- * link as the trainer types (so the address bar is always the set-up to share).
+ * link as the trainer types (so the address bar is always the set-up to share). Numbers are read
+ * with the organization's decimal mark; a link written in the other mark is rewritten value for
+ * value once the organization's mark is known.
  */
 export function useLabSetup() {
   const store = useLabStore()
   const route = useRoute()
   const router = useRouter()
+  const decimalMark = useDecimalMark()
+  const { data: numberFormat } = useNuxtData('number-format')
   if (hasLabQuery(route.query)) {
     const decoded = decodeLabQuery(route.query as Record<string, unknown>)
     store.setup = decoded.state
     store.notices = decoded.notices
+    store.textMark = decoded.decimalMark
   }
   if (route.query.room === '1') store.classroom = true
 
+  watch([decimalMark, () => Boolean(numberFormat.value)], ([mark, known]) => {
+    if (!known || store.textMark === mark) return
+    const rewritten = rewriteLabNumbers(store.setup, store.textMark, mark)
+    store.setup = rewritten.state
+    store.notices = [...store.notices, ...rewritten.notices]
+    store.textMark = mark
+  }, { immediate: true })
+
   let timer: ReturnType<typeof setTimeout> | undefined
-  watch(() => [store.setup, store.classroom], () => {
+  watch(() => [store.setup, store.classroom, store.textMark], () => {
     clearTimeout(timer)
     timer = setTimeout(() => {
-      void router.replace({ query: { ...(route.query.lesson ? { lesson: route.query.lesson } : {}), ...encodeLabQuery(store.setup), ...(store.classroom ? { room: '1' } : {}) } })
+      void router.replace({ query: { ...(route.query.lesson ? { lesson: route.query.lesson } : {}), ...encodeLabQuery(store.setup, store.textMark), ...(store.classroom ? { room: '1' } : {}) } })
     }, 250)
   }, { deep: true })
   onScopeDispose(() => clearTimeout(timer))
@@ -30,7 +44,7 @@ export function useLabSetup() {
   const protocol = computed(() => findBuiltInProtocol(store.setup.protocolKey) ?? findBuiltInProtocol('osha-standard')!)
   /** Each field's value, or null and its message; pages show the message beside the field. */
   function checked(field: LabField, text: string) {
-    const r = checkLabField(field, text)
+    const r = checkLabField(field, text, store.textMark)
     return r.ok ? { value: r.value, message: null } : { value: null, message: r.message }
   }
   /** The simulated test's inputs, or null while a field above needs correcting. */
@@ -55,7 +69,7 @@ export function useLabSetup() {
   /** A new protocol has other exercises: start them from a good seal. */
   function resetFactors() {
     const factors = LEAK_PRESETS[0]!.factorsFor(protocol.value, runInput.value?.passLevel ?? 100)!
-    store.setup.trueFactors = Object.fromEntries(Object.entries(factors).map(([k, v]) => [k, String(v)]))
+    store.setup.trueFactors = Object.fromEntries(Object.entries(factors).map(([k, v]) => [k, plainTypedNumber(v, store.textMark)]))
   }
-  return { store, protocol, checked, runInput, resetFactors }
+  return { store, protocol, checked, runInput, resetFactors, decimalMark: computed(() => store.textMark) }
 }

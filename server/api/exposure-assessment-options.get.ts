@@ -5,7 +5,7 @@ export default defineEventHandler(async (event) => {
   const caller = await requireRole(event, 'tester', 'reviewer', 'trainer')
   const p = schema.people
   const [ruleSet, sites, people] = await Promise.all([
-    ruleSetKeyOf(caller.organizationId),
+    assessmentRuleSetOf(caller.organizationId),
     listSites(caller.organizationId),
     useDb().select({ id: p.id, fullName: p.fullName, jobTitle: p.jobTitle, active: p.active }).from(p).where(eq(p.organizationId, caller.organizationId)).orderBy(asc(p.fullName))
   ])

@@ -6,7 +6,8 @@ import { evaluateExposureAssessment } from '#shared/utils/compute/exposure-asses
 import type { AssessmentResult } from '#shared/utils/compute/exposure-assessment'
 import type { saveAssessmentSchema } from '#shared/utils/exposure-schemas'
 import { protectionFor } from '#shared/utils/exposure-protection'
-import type { FitRecordSummary, PersonProtection } from '#shared/utils/exposure-protection'
+import type { PersonProtection } from '#shared/utils/exposure-protection'
+import { respiratorStandings } from '#shared/utils/oversight'
 
 export type AssessmentRow = typeof schema.exposureAssessments.$inferSelect
 export type SaveAssessment = z.output<typeof saveAssessmentSchema>
@@ -15,7 +16,8 @@ export function assessmentError(statusCode: number, message: string, fieldErrors
   return httpError(statusCode, message, fieldErrors ? { fieldErrors } : undefined)
 }
 
-export async function ruleSetKeyOf(organizationId: string): Promise<PassLevelRuleSetKey> {
+// Named apart from pass-levels.ts's `ruleSetOf(org)`: server utils share one auto-import namespace.
+export async function assessmentRuleSetOf(organizationId: string): Promise<PassLevelRuleSetKey> {
   const [org] = await useDb().select({ ruleSet: schema.organizations.ruleSet }).from(schema.organizations).where(eq(schema.organizations.id, organizationId))
   return org?.ruleSet === 'uk-hse' ? 'uk-hse' : 'us-osha'
 }
@@ -108,20 +110,12 @@ export async function assignmentsOf(organizationId: string, recordId: string) {
     .where(and(eq(x.organizationId, organizationId), eq(x.recordId, recordId))).orderBy(asc(x.createdAt))
 }
 
-async function passingTestsByPerson(organizationId: string, personIds: string[]) {
+/** The finished fit tests behind the conditions relied on, for the coverage flag. */
+async function fitTestsForCoverage(organizationId: string, ids: string[]) {
   const t = schema.fitTests
-  const out = new Map<string, FitRecordSummary[]>()
-  if (!personIds.length) return { byPerson: out, rows: [] }
-  const rows = await useDb().select({
-    id: t.id, personId: t.personId, respiratorClass: t.respiratorClass, make: t.respiratorMake, model: t.respiratorModel,
-    size: t.respiratorSize, performedAt: t.performedAt, dueOn: t.dueOn, counterId: t.counterId, siteId: t.siteId
-  }).from(t).where(and(eq(t.organizationId, organizationId), eq(t.status, 'finished'), eq(t.passed, true), inArray(t.personId, personIds)))
-  for (const r of rows) {
-    const list = out.get(r.personId) ?? []
-    list.push({ id: r.id, respiratorClass: r.respiratorClass, respirator: `${r.make} ${r.model}`, size: r.size, performedOn: r.performedAt.toISOString().slice(0, 10), dueOn: r.dueOn })
-    out.set(r.personId, list)
-  }
-  return { byPerson: out, rows }
+  if (!ids.length) return []
+  return useDb().select({ id: t.id, performedAt: t.performedAt, counterId: t.counterId, siteId: t.siteId })
+    .from(t).where(and(eq(t.organizationId, organizationId), inArray(t.id, ids)))
 }
 
 export async function protectedPeopleOf(organizationId: string, rows: Pick<AssessmentRow, 'recordId' | 'ruleSet' | 'input' | 'chosenClassKeys'>[], today: string) {
@@ -146,22 +140,27 @@ export async function protectedPeopleOf(organizationId: string, rows: Pick<Asses
     reached.set(a.recordId, people)
   }
   const allIds = [...new Set([...reached.values()].flatMap(m => [...m.keys()]))]
-  const tests = await passingTestsByPerson(organizationId, allIds)
+  // Fit standing per respirator model by the oversight rules (a later failure on the same model
+  // cancels an earlier pass), and each person's clearance records.
+  const [events, clearances] = allIds.length ? await Promise.all([loadFitEvents(organizationId, allIds), loadClearances(organizationId, allIds)]) : [new Map(), new Map()]
+  const standings = new Map(allIds.map(id => [id, respiratorStandings(events.get(id) ?? [], [], today)]))
   const out = new Map<string, AssignedPerson[]>()
   for (const row of rows) {
     const allowedClasses = allowedClassesOf(row)
     const people = [...(reached.get(row.recordId)?.values() ?? [])]
     out.set(row.recordId, people.map(({ person, via }) => ({
       personId: person.id, fullName: person.fullName, jobTitle: person.jobTitle, via,
-      protection: protectionFor({ allowedClasses, passingFitTests: tests.byPerson.get(person.id) ?? [], today })
+      protection: protectionFor({ allowedClasses, respirators: standings.get(person.id) ?? [], clearances: clearances.get(person.id) ?? [], today })
     })))
   }
   // A fit test no passing readiness check covers is flagged wherever it is relied on.
-  const relied = new Set([...out.values()].flat().flatMap(p => p.protection.conditions.map(c => c.recordId)).filter(Boolean))
-  const coverage = await findCoverageMany(organizationId, tests.rows.filter(r => relied.has(r.id)))
+  const reliedOn = (c: PersonProtection['conditions'][number]) => c.key === 'fit-test' && c.met && c.recordId ? c.recordId : null
+  const relied = [...new Set([...out.values()].flat().flatMap(p => p.protection.conditions.map(reliedOn)).filter((id): id is string => Boolean(id)))]
+  const coverage = await findCoverageMany(organizationId, await fitTestsForCoverage(organizationId, relied))
   for (const p of [...out.values()].flat()) {
     for (const c of p.protection.conditions) {
-      const cover = c.recordId ? coverage.get(c.recordId) : undefined
+      const id = reliedOn(c)
+      const cover = id ? coverage.get(id) : undefined
       if (cover && !cover.covered) p.protection.notes.push(`Flag: the fit test relied on here is not covered. ${cover.message}`)
     }
   }

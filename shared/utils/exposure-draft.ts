@@ -1,11 +1,15 @@
 import type { ConcentrationUnit } from './compute/exposure'
 import type { LimitKind, SubstanceForm } from './compute/exposure-assessment'
 import { readCalculatorNumber } from './exposure-number'
+import { plainTypedNumber } from './number-reader'
+import type { DecimalMark } from './number-reader'
 import type { AssessmentStoredInput } from './exposure-schemas'
 
 // The calculator form as typed (every number as text), and its reading into the stored input.
 // A number that cannot be read gets a message on its field; a number read differently from how
-// it was typed is listed so the page can show the value as read.
+// it was typed is listed so the page can show the value as read. Text is read with the
+// organization's decimal mark, so "0,5" is a half where the mark is a comma and refused where it
+// is a point (never silently read as 5).
 
 export interface SegmentDraft {
   concentration: string
@@ -48,11 +52,11 @@ export interface ReadDraft {
   asRead: Record<string, string>
 }
 
-export function readCalculatorDraft(draft: CalculatorDraft): ReadDraft {
+export function readCalculatorDraft(draft: CalculatorDraft, decimalMark: DecimalMark = 'point'): ReadDraft {
   const readErrors: Record<string, string> = {}
   const asRead: Record<string, string> = {}
   const read = (text: string, field: string): number | null => {
-    const r = readCalculatorNumber(text)
+    const r = readCalculatorNumber(text, decimalMark)
     if (!r.ok) {
       readErrors[field] = r.message
       return null
@@ -83,9 +87,10 @@ export function readCalculatorDraft(draft: CalculatorDraft): ReadDraft {
   return { input: { contaminants, additiveMixture: draft.additiveMixture, oxygenDeficient: draft.oxygenDeficient }, readErrors, asRead }
 }
 
-// A stored input back into the form, for editing a draft or starting from a saved assessment.
-export function draftFromInput(input: AssessmentStoredInput): CalculatorDraft {
-  const text = (v: number | null | undefined) => v === null || v === undefined ? '' : String(v)
+// A stored input back into the form, for editing a draft or starting from a saved assessment,
+// written with the organization's decimal mark so it reads back as the same numbers.
+export function draftFromInput(input: AssessmentStoredInput, decimalMark: DecimalMark = 'point'): CalculatorDraft {
+  const text = (v: number | null | undefined) => v === null || v === undefined ? '' : plainTypedNumber(v, decimalMark)
   return {
     additiveMixture: input.additiveMixture,
     oxygenDeficient: input.oxygenDeficient,

@@ -2,7 +2,7 @@
 // patterns offered as presets, and the set-up carried in a shared link. Pure: no Vue, no Nitro.
 import type { CountingConditions, Protocol } from './compute'
 import type { DecimalMark } from './number-reader'
-import { readTypedNumber } from './number-reader'
+import { formatTypedNumber, plainTypedNumber, readTypedNumber } from './number-reader'
 import {
   BUILT_IN_PROTOCOLS,
   expectedInMaskCount,
@@ -10,7 +10,7 @@ import {
   sampleSecondsForFitFactor
 } from './compute'
 
-/** Every number typed in the lab goes through the program's one reader (point as decimal mark). */
+/** Every number typed in the lab goes through the program's one reader, with the organization's decimal mark. */
 export function readLabNumber(text: string, decimalMark: DecimalMark = 'point'): { ok: true, value: number } | { ok: false, message: string } {
   const read = readTypedNumber(text, { decimalMark })
   if (read.ok) return { ok: true, value: read.value }
@@ -44,14 +44,11 @@ export const LAB_FIELDS = {
 } as const satisfies Record<string, LabFieldRule>
 export type LabField = keyof typeof LAB_FIELDS
 
-function fmt(n: number): string {
-  return n.toLocaleString('en-US', { maximumFractionDigits: 6 })
-}
-
 /** A typed lab value, or the sentence to show beside its field. Never Infinity or NaN. */
-export function checkLabField(field: LabField, text: string): { ok: true, value: number } | { ok: false, message: string } {
+export function checkLabField(field: LabField, text: string, decimalMark: DecimalMark = 'point'): { ok: true, value: number } | { ok: false, message: string } {
   const rule: LabFieldRule = LAB_FIELDS[field]
-  const read = readLabNumber(text)
+  const fmt = (n: number) => formatTypedNumber(Number(n.toPrecision(12)), decimalMark)
+  const read = readLabNumber(text, decimalMark)
   if (!read.ok) return read
   const v = read.value
   const unit = rule.unit ? ` ${rule.unit}` : ''
@@ -183,9 +180,18 @@ const QUERY_KEYS: Record<Exclude<keyof LabTextState, 'trueFactors'>, string> = {
 }
 const MAX_QUERY_TEXT = 60
 
+/** The set-up's fields that hold a typed number (the rest are labels and choices). */
+const NUMBER_FIELDS: { field: Exclude<keyof LabTextState, 'trueFactors'>, rule: LabField }[] = [
+  { field: 'aAmbient', rule: 'ambient' }, { field: 'aFlow', rule: 'flow' },
+  { field: 'bAmbient', rule: 'ambient' }, { field: 'bFlow', rule: 'flow' },
+  { field: 'fitFactor', rule: 'fitFactor' }, { field: 'precisionPercent', rule: 'precisionPercent' },
+  { field: 'sampleSeconds', rule: 'sampleSeconds' }, { field: 'passLevel', rule: 'passLevel' },
+  { field: 'ambient', rule: 'ambient' }, { field: 'flow', rule: 'flow' }, { field: 'runs', rule: 'runs' }, { field: 'seed', rule: 'seed' }
+]
+
 /** True when a query string carries a lab set-up (other parameters, such as a lesson number, do not count). */
 export function hasLabQuery(query: Record<string, unknown>): boolean {
-  return [...Object.values(QUERY_KEYS), 'tf'].some(k => k in query)
+  return [...Object.values(QUERY_KEYS), 'tf', 'dm'].some(k => k in query)
 }
 
 export function defaultLabState(): LabTextState {
@@ -201,9 +207,14 @@ export function defaultLabState(): LabTextState {
   }
 }
 
-/** The set-up as a query string. Text is carried as typed, so a shared link never reinterprets it. */
-export function encodeLabQuery(state: LabTextState): Record<string, string> {
-  const out: Record<string, string> = {}
+/**
+ * The set-up as a query string. Text is carried as typed, with the decimal mark it was typed in:
+ * `dm=comma` when that is a comma, nothing when it is a point, so every link written before the
+ * setting existed (all with a point) still reads as it did. See `decodeLabQuery` and
+ * `rewriteLabNumbers` for how a link opened in the other mark is read.
+ */
+export function encodeLabQuery(state: LabTextState, decimalMark: DecimalMark = 'point'): Record<string, string> {
+  const out: Record<string, string> = decimalMark === 'comma' ? { dm: 'comma' } : {}
   for (const [field, key] of Object.entries(QUERY_KEYS) as [keyof typeof QUERY_KEYS, string][]) out[key] = state[field]
   const protocol = BUILT_IN_PROTOCOLS.find(p => p.key === state.protocolKey)
   if (protocol) out.tf = protocol.exercises.filter(e => e.counted).map(e => state.trueFactors[e.key] ?? '').join('~')
@@ -213,10 +224,15 @@ export function encodeLabQuery(state: LabTextState): Record<string, string> {
 /**
  * A shared link back into a set-up; anything missing keeps the default, text stays as it was sent
  * (a bad value then shows its message beside the field). What could not be used is named in `notices`.
+ * `decimalMark` is the mark the link's numbers are written in (a point unless it says `dm=comma`);
+ * pass the state through `rewriteLabNumbers` when the reader's organization uses the other one.
  */
-export function decodeLabQuery(query: Record<string, unknown>): { state: LabTextState, notices: string[] } {
+export function decodeLabQuery(query: Record<string, unknown>): { state: LabTextState, notices: string[], decimalMark: DecimalMark } {
   const state = defaultLabState()
   const notices: string[] = []
+  let decimalMark: DecimalMark = 'point'
+  if (query.dm === 'comma') decimalMark = 'comma'
+  else if (query.dm !== undefined && query.dm !== 'point') notices.push('The link names a decimal mark the lab does not know; its numbers are read with a point.')
   for (const [field, key] of Object.entries(QUERY_KEYS) as [keyof typeof QUERY_KEYS, string][]) {
     const v = query[key]
     if (typeof v === 'string') state[field] = v.slice(0, MAX_QUERY_TEXT)
@@ -236,5 +252,29 @@ export function decodeLabQuery(query: Record<string, unknown>): { state: LabText
     const factors = LEAK_PRESETS[0]!.factorsFor(chosen, 100)!
     state.trueFactors = Object.fromEntries(Object.entries(factors).map(([k, v]) => [k, String(v)]))
   }
-  return { state, notices }
+  return { state, notices, decimalMark }
+}
+
+/**
+ * The set-up's numbers rewritten from one decimal mark to the other, value for value ("0,5" → "0.5").
+ * A text that cannot be read in the mark it was written in is kept only when the new mark refuses
+ * it too (so its message still shows beside the field); if the new mark would read it as some
+ * other number ("1,5" written with a point, read with a comma as 1.5) it is emptied and named in
+ * `notices`, never silently given a meaning it did not have.
+ */
+export function rewriteLabNumbers(state: LabTextState, from: DecimalMark, to: DecimalMark): { state: LabTextState, notices: string[] } {
+  if (from === to) return { state, notices: [] }
+  const notices: string[] = []
+  const exercises = BUILT_IN_PROTOCOLS.find(p => p.key === state.protocolKey)?.exercises ?? []
+  const rewrite = (text: string, name: string): string => {
+    const read = readTypedNumber(text, { decimalMark: from })
+    if (read.ok) return plainTypedNumber(read.value, to)
+    if (read.empty || !readTypedNumber(text, { decimalMark: to }).ok) return text
+    notices.push(`${name}: the link's "${text}" was written with a ${from} as decimal mark and cannot be read; type it again.`)
+    return ''
+  }
+  const next: LabTextState = { ...state, trueFactors: {} }
+  for (const { field, rule } of NUMBER_FIELDS) next[field] = rewrite(state[field], LAB_FIELDS[rule].label)
+  for (const [key, text] of Object.entries(state.trueFactors)) next.trueFactors[key] = rewrite(text, `True fit factor, ${exercises.find(e => e.key === key)?.name ?? key}`)
+  return { state: next, notices }
 }

@@ -51,6 +51,14 @@ export function formatTypedNumber(value: number, decimalMark: DecimalMark = 'poi
 }
 
 /**
+ * The value as plain text in this organization's mark: no digit grouping, so it reads back as
+ * itself and matches option values ("2000", "0,5"). For filling a field from a stored number.
+ */
+export function plainTypedNumber(value: number, decimalMark: DecimalMark = 'point'): string {
+  return decimalMark === 'comma' ? String(value).replace('.', ',') : String(value)
+}
+
+/**
  * Reads what a person typed. A refusal says what was read and how to write it, so the cell can
  * show it beside the field; `differs` tells the preview to show the value as read.
  */
@@ -115,8 +123,7 @@ export function readTypedNumber(text: string, options: ReadOptions = {}): Number
   const value = Number(canonical)
   if (!Number.isFinite(value)) return refused(`'${shown}' is too large to be a reading.`)
   const asRead = formatTypedNumber(value === 0 ? 0 : value, decimalMark)
-  const plain = decimalMark === 'comma' ? String(value).replace('.', ',') : String(value)
-  return { ok: true, value: value === 0 ? 0 : value, asRead, differs: shown !== plain }
+  return { ok: true, value: value === 0 ? 0 : value, asRead, differs: shown !== plainTypedNumber(value, decimalMark) }
 }
 
 /** The value, or undefined when the text is empty or refused (for places that show the refusal elsewhere). */

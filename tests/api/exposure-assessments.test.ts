@@ -29,11 +29,21 @@ function draft(over: Record<string, unknown> = {}) {
 }
 
 async function passingTest(personId: string, respiratorModelId: string, respiratorClass: string, dueOn: string) {
+  await finishedTest(personId, respiratorModelId, respiratorClass, { passed: true, dueOn, performedAt: new Date('2026-01-10T10:00:00Z') })
+}
+
+async function finishedTest(personId: string, respiratorModelId: string, respiratorClass: string, result: { passed: boolean, dueOn: string | null, performedAt: Date }) {
   await testDb().insert(schema.fitTests).values({
     organizationId: a.id, recordId: randomUUID(), status: 'finished', personId, siteId: program.siteId, testerUserId: a.users.tester.id,
     respiratorModelId, respiratorMake: 'Fixture Safety', respiratorModel: 'FX', respiratorClass, respiratorSize: 'M',
-    protocolKey: 'standard', performedAt: new Date('2026-01-10T10:00:00Z'), preTest: {} as never, entry: {} as never,
-    passed: true, overallFitFactor: 900, dueOn
+    protocolKey: 'standard', performedAt: result.performedAt, preTest: {} as never, entry: {} as never,
+    passed: result.passed, overallFitFactor: result.passed ? 900 : 40, dueOn: result.dueOn
+  })
+}
+
+async function clearance(personId: string, respiratorClasses: string[], validUntil: string | null = '2099-01-01') {
+  await testDb().insert(schema.medicalClearances).values({
+    organizationId: a.id, personId, clearedOn: '2026-01-02', validUntil, clearedBy: 'Fixture clinic', respiratorClasses
   })
 }
 
@@ -151,6 +161,8 @@ describe('who is protected for the job', () => {
     ]).returning()
     await passingTest(half!.id, program.halfMaskId, 'elastomeric-half-mask', '2099-01-01')
     await passingTest(full!.id, program.fullFacepieceId, 'elastomeric-full-facepiece', '2099-01-01')
+    await clearance(half!.id, ['elastomeric-half-mask', 'elastomeric-full-facepiece'])
+    await clearance(full!.id, ['elastomeric-full-facepiece'])
 
     const created = await reviewer.post('/api/exposure-assessments', draft({ title: `Job ${jobTitle}` }))
     const id = created.body.id
@@ -173,5 +185,41 @@ describe('who is protected for the job', () => {
     const text = await csv.text()
     expect(text).toContain('Avery Halfmask')
     expect(text).not.toContain('Blake Fullface')
+  })
+
+  it('a later failed test on the same model cancels the earlier pass, and a missing clearance is a named gap', async () => {
+    const db = testDb()
+    const jobTitle = `Decanting operator ${randomUUID().slice(0, 4)}`
+    const [refitted, uncleared, lapsed] = await db.insert(schema.people).values([
+      { organizationId: a.id, fullName: 'Casey Failedlater', jobTitle, siteId: program.siteId },
+      { organizationId: a.id, fullName: 'Devon Noclearance', jobTitle, siteId: program.siteId },
+      { organizationId: a.id, fullName: 'Emery Lapsed', jobTitle, siteId: program.siteId }
+    ]).returning()
+    // Pass in January, fail in March on the same full facepiece model: the pass no longer counts.
+    await passingTest(refitted!.id, program.fullFacepieceId, 'elastomeric-full-facepiece', '2099-01-01')
+    await finishedTest(refitted!.id, program.fullFacepieceId, 'elastomeric-full-facepiece', { passed: false, dueOn: null, performedAt: new Date('2026-03-05T10:00:00Z') })
+    await clearance(refitted!.id, ['elastomeric-full-facepiece'])
+    await passingTest(uncleared!.id, program.fullFacepieceId, 'elastomeric-full-facepiece', '2099-01-01')
+    await clearance(uncleared!.id, ['elastomeric-half-mask'])
+    await passingTest(lapsed!.id, program.fullFacepieceId, 'elastomeric-full-facepiece', '2099-01-01')
+    await clearance(lapsed!.id, ['elastomeric-full-facepiece'], '2026-02-01')
+
+    const created = await reviewer.post('/api/exposure-assessments', draft({ title: `Job ${jobTitle}` }))
+    const id = created.body.id
+    expect((await reviewer.post(`/api/exposure-assessments/${id}/sign-off`)).status).toBe(200)
+    expect((await reviewer.post(`/api/exposure-assessments/${id}/assignments`, { jobTitle })).status).toBe(201)
+
+    const read = await reviewer.get(`/api/exposure-assessments/${id}`)
+    const byName = Object.fromEntries(read.body.people.map((p: { fullName: string }) => [p.fullName, p.protection]))
+    expect(byName['Casey Failedlater'].protected).toBe(false)
+    expect(byName['Casey Failedlater'].gap).toContain('(2026-03-05) did not pass. The earlier pass of 2026-01-10 no longer counts.')
+    expect(byName['Devon Noclearance'].protected).toBe(false)
+    expect(byName['Devon Noclearance'].gap).toBe('No current medical clearance for a full facepiece: the clearance on file covers a half mask only.')
+    expect(byName['Emery Lapsed'].protected).toBe(false)
+    expect(byName['Emery Lapsed'].gap).toBe('No current medical clearance for a full facepiece: the last one lapsed on 2026-02-01.')
+
+    const gaps = await reviewer.get('/api/protection-gaps')
+    const named = gaps.body.filter((g: { assessmentId: string }) => g.assessmentId === id).map((g: { fullName: string }) => g.fullName).sort()
+    expect(named).toEqual(['Casey Failedlater', 'Devon Noclearance', 'Emery Lapsed'])
   })
 })

@@ -15,7 +15,7 @@ import {
   simulateFitTests
 } from '#shared/utils/compute'
 import type { Protocol } from '#shared/utils/compute'
-import { LEAK_PRESETS, checkLabField, decodeLabQuery, defaultLabState, encodeLabQuery, planCurve, planSetup, readLabNumber } from '#shared/utils/lab-setup'
+import { LEAK_PRESETS, checkLabField, decodeLabQuery, defaultLabState, encodeLabQuery, planCurve, planSetup, readLabNumber, rewriteLabNumbers } from '#shared/utils/lab-setup'
 
 // A protocol whose counted exercises all sample the same seconds, so the exact method applies.
 // Invented for the test: three exercises of 40 s in-mask sample.
@@ -86,6 +86,46 @@ describe('lab input', () => {
     const unknown = decodeLabQuery({ p: 'no-such-protocol' })
     expect(unknown.state.protocolKey).toBe('osha-standard')
     expect(unknown.notices[0]).toMatch(/does not know/)
+  })
+
+  it.each([
+    { field: 'precisionPercent', text: '2,5', ok: true, why: 'comma as decimal mark (DOMAIN.md Typing numbers)' },
+    { field: 'ambient', text: '12.500', ok: true, why: 'point groups thousands with a comma mark (DOMAIN.md Typing numbers)' },
+    { field: 'flow', text: '3.5', ok: false, why: 'ambiguous with a comma as decimal mark (DOMAIN.md Typing numbers)' },
+    { field: 'runs', text: '2,5', ok: false, why: 'runs are whole, read with a comma' }
+  ] as const)('with a comma, $field "$text" → ok=$ok ($why)', ({ field, text, ok }) => {
+    expect(checkLabField(field, text, 'comma').ok).toBe(ok)
+  })
+
+  it('reads with the organization\'s mark: "2,5" % is 2.5 with a comma', () => {
+    expect(checkLabField('precisionPercent', '2,5', 'comma')).toEqual({ ok: true, value: 2.5 })
+    expect(checkLabField('ambient', '12.500', 'comma')).toEqual({ ok: true, value: 12500 })
+  })
+
+  it('a link says when its numbers use a comma, and links without that read with a point as before', () => {
+    const state = { ...defaultLabState(), precisionPercent: '2,5' }
+    const query = encodeLabQuery(state, 'comma')
+    expect(query.dm).toBe('comma')
+    expect(decodeLabQuery(query)).toEqual({ state, notices: [], decimalMark: 'comma' })
+    expect(encodeLabQuery(defaultLabState(), 'point').dm).toBeUndefined()
+    expect(decodeLabQuery({ r: '2.5' }).decimalMark).toBe('point')
+  })
+
+  it('a link opened in the other mark is rewritten value for value, never given a new meaning', () => {
+    const fromPoint = { ...defaultLabState(), precisionPercent: '2.5', ambient: '12,500', aFlow: '1,5', fitFactor: 'abc' }
+    const { state, notices } = rewriteLabNumbers(fromPoint, 'point', 'comma')
+    expect(state.precisionPercent).toBe('2,5')
+    expect(state.ambient).toBe('12500')
+    // "1,5" was refused with a point; with a comma it would read 1.5, so it is emptied and named.
+    expect(state.aFlow).toBe('')
+    expect(notices).toHaveLength(1)
+    expect(notices[0]).toContain('Counter sample flow')
+    // Refused in both marks: kept, so its own message shows beside the field.
+    expect(state.fitFactor).toBe('abc')
+    expect(checkLabField('precisionPercent', state.precisionPercent, 'comma')).toEqual({ ok: true, value: 2.5 })
+    const back = rewriteLabNumbers(state, 'comma', 'point').state
+    expect(back.precisionPercent).toBe('2.5')
+    expect(rewriteLabNumbers(fromPoint, 'point', 'point').state).toBe(fromPoint)
   })
 
   it('offers presets only where the protocol has the exercise they are about', () => {

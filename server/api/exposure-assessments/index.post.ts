@@ -5,7 +5,7 @@ import { saveAssessmentSchema } from '#shared/utils/exposure-schemas'
 export default defineEventHandler(async (event) => {
   const caller = await requireRole(event, 'reviewer')
   const body = await parseBody(event, saveAssessmentSchema)
-  const ruleSet = await ruleSetKeyOf(caller.organizationId)
+  const ruleSet = await assessmentRuleSetOf(caller.organizationId)
   const result = evaluateForSave(body, ruleSet)
   await assertAssessmentSite(caller.organizationId, body.siteId)
   const row = await useDb().transaction(async (tx) => {
