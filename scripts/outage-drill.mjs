@@ -29,10 +29,11 @@ async function references() {
   await client.connect()
   try {
     const { rows: [row] } = await client.query(`
-      select u.organization_id, p.id as person_id, p.site_id, m.id as model_id, m.sizes
+      select u.organization_id, p.id as person_id, p.site_id, m.id as model_id, m.sizes, c.id as counter_id
       from users u
       join people p on p.organization_id = u.organization_id
       join respirator_models m on m.organization_id = u.organization_id
+      join counters c on c.organization_id = u.organization_id and c.active
       where u.email = 'tester@tamsin-valley.example' limit 1`)
     return row
   } finally {
@@ -51,7 +52,7 @@ async function createDraft(cookie, refs, key) {
     const response = await fetch(`${base}/api/fit-tests`, {
       method: 'POST',
       headers: { 'content-type': 'application/json', cookie },
-      body: JSON.stringify({ idempotencyKey: key, personId: refs.person_id, respiratorModelId: refs.model_id, respiratorSize: refs.sizes[0], protocolKey: 'osha-standard', siteId: refs.site_id, preTest: { medicalClearanceCurrent: true, nothingCrossingSeal: true, userSealCheckDone: true, comfortAcceptable: true } }),
+      body: JSON.stringify({ idempotencyKey: key, personId: refs.person_id, respiratorModelId: refs.model_id, respiratorSize: refs.sizes[0], protocolKey: 'osha-standard', counterId: refs.counter_id, siteId: refs.site_id, preTest: { medicalClearanceCurrent: true, nothingCrossingSeal: true, userSealCheckDone: true, comfortAcceptable: true } }),
       signal: AbortSignal.timeout(15_000)
     })
     const body = await response.json().catch(() => ({}))
