@@ -3,6 +3,20 @@ import type { PassLevelRuleSetKey, Protocol } from '#shared/utils/compute'
 import { evaluateFitTest } from '#shared/utils/fit-test-evaluate'
 
 type ExportRow = Awaited<ReturnType<typeof exportFitTests>>[number]
+type Reviews = Awaited<ReturnType<typeof reviewsOf>>
+
+/** The review columns of one record: its countersign (this revision only) and its queries. */
+function reviewCells(fitTestId: string, reviews: Reviews) {
+  const countersign = reviews.countersigns.find(c => c.fitTestId === fitTestId)
+  const queries = reviews.queries.filter(q => q.fitTestId === fitTestId)
+  return {
+    'countersigned by': countersign?.signedBy ?? '',
+    'countersigned at (UTC)': countersign ? countersign.signedAt.toISOString() : '',
+    'countersign comment': countersign?.comment ?? '',
+    'open queries': queries.filter(q => q.status === 'open').length,
+    'answered queries': queries.filter(q => q.status !== 'open').length
+  }
+}
 
 /**
  * What the result column says. Only a finished record can say pass or fail: a withdrawn record
@@ -22,9 +36,10 @@ const round = (value: number | null | undefined, digits = 3) => (value === null 
  * One line per record: every 29 CFR 1910.134(m)(2) field held, the record's status, and each
  * exercise's concentrations and fit factor recomputed from the raw inputs (nothing the client
  * computed). Exercise columns are numbered in protocol order, so records of different protocols
- * share columns; the exercise's name is in its own column.
+ * share columns; the exercise's name is in its own column. A countersign belongs to one revision:
+ * a correction shows none until it is countersigned afresh.
  */
-export function fitTestExportLines(rows: ExportRow[], ruleSet: string) {
+export function fitTestExportLines(rows: ExportRow[], ruleSet: string, reviews: Reviews = { countersigns: [], queries: [] }) {
   const rules = PASS_LEVEL_RULE_SETS[ruleSet as PassLevelRuleSetKey]
   const evaluated = rows.map((r) => {
     const protocol = r.protocol as Protocol | null
@@ -57,7 +72,8 @@ export function fitTestExportLines(rows: ExportRow[], ruleSet: string) {
       'result': exportResultWord(r),
       'limiting exercise': r.limitingExerciseKey ?? '',
       'next due': r.status === 'finished' ? r.dueOn ?? '' : '',
-      'tester': r.testerName
+      'tester': r.testerName,
+      ...reviewCells(r.id, reviews)
     }
     for (let i = 0; i < slots; i++) {
       const exercise = protocol?.exercises[i]

@@ -1,5 +1,6 @@
 import { randomUUID } from 'node:crypto'
 import { and, eq } from 'drizzle-orm'
+import Papa from 'papaparse'
 import { geometricMean, median } from 'simple-statistics'
 import { afterAll, beforeAll, describe, expect, it } from 'vitest'
 import * as schema from '../../server/database/schema'
@@ -16,7 +17,7 @@ let program: FixtureProgram
 let tester: Client
 let reviewer: Client
 let people: Record<'drifting' | 'steady' | 'leaky', string>
-const finished: { id: string, personKey: string, model: 'half' | 'full', size: string, performedAt: string, overall: number, passed: boolean, limiting: string }[] = []
+const finished: { id: string, recordId: string, personKey: string, model: 'half' | 'full', size: string, performedAt: string, overall: number, passed: boolean, limiting: string }[] = []
 
 async function finishTest(personKey: keyof typeof people, model: 'half' | 'full', size: string, performedAt: string, ffs: number[]) {
   const created = await tester.post('/api/fit-tests', {
@@ -27,7 +28,7 @@ async function finishTest(personKey: keyof typeof people, model: 'half' | 'full'
   expect(created.status, JSON.stringify(created.body)).toBe(201)
   const done = await tester.post(`/api/fit-tests/${created.body.id}/finish`, { version: created.body.version })
   expect(done.status, JSON.stringify(done.body)).toBe(200)
-  finished.push({ id: done.body.id, personKey, model, size, performedAt, overall: done.body.overallFitFactor, passed: done.body.passed, limiting: done.body.limitingExerciseKey })
+  finished.push({ id: done.body.id, recordId: done.body.recordId, personKey, model, size, performedAt, overall: done.body.overallFitFactor, passed: done.body.passed, limiting: done.body.limitingExerciseKey })
   return done.body
 }
 
@@ -208,6 +209,17 @@ describe('review queue, countersign and query', () => {
     expect((await tester.post(`/api/fit-tests/${id}/queries/${queryId}/answer`, { answer: 'again' })).status).toBe(409)
     const actions = (await testDb().select().from(schema.auditEvents).where(eq(schema.auditEvents.entityId, id))).map(a => a.action)
     expect(actions).toEqual(expect.arrayContaining(['query-raised', 'query-answered']))
+  })
+
+  it('the CSV carries each record\'s countersign and its queries', async () => {
+    const csv = await reviewer.get('/api/exports/fit-tests.csv')
+    expect(csv.status).toBe(200)
+    const lines = Papa.parse<Record<string, string>>(csv.body, { header: true, skipEmptyLines: true }).data
+    const signed = lines.find(l => l['record'] === finished[0]!.recordId)!
+    expect(signed['countersign comment']).toBe('Counts look right.')
+    expect(signed['countersigned by']).not.toBe('')
+    const queried = lines.find(l => l['record'] === finished[4]!.recordId)!
+    expect(queried).toMatchObject({ 'countersigned by': '', 'open queries': '0', 'answered queries': '1' })
   })
 
   it('a correction after countersign needs a fresh countersign', async () => {

@@ -10,7 +10,8 @@ export default defineEventHandler(async (event) => {
   const caller = await requireRole(event, 'tester', 'reviewer')
   const query = parseQuery(event, listFitTestsQuerySchema)
   const [rows, org] = await Promise.all([exportFitTests(caller.organizationId, query), findOrganization(caller.organizationId)])
-  const csv = Papa.unparse(neutraliseCsvRows(fitTestExportLines(rows, org.ruleSet)), { escapeFormulae: false })
+  const reviews = await reviewsOf(caller.organizationId, rows.map(r => r.id))
+  const csv = Papa.unparse(neutraliseCsvRows(fitTestExportLines(rows, org.ruleSet, reviews)), { escapeFormulae: false })
   setResponseHeader(event, 'Content-Type', 'text/csv; charset=utf-8')
   setResponseHeader(event, 'Content-Disposition', `attachment; filename="fit-tests-${new Date().toISOString().slice(0, 10)}.csv"`)
   return csv
