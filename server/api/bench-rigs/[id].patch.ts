@@ -3,7 +3,7 @@ import { updateBenchRigSchema } from '#shared/utils/equipment-schemas'
 import { idParamSchema } from '#shared/utils/user-schemas'
 
 export default defineEventHandler(async (event) => {
-  const caller = await requireRole(event, 'tester')
+  const caller = await requireRole(event, 'record')
   const { id } = parseParams(event, idParamSchema)
   const changes = await parseBody(event, updateBenchRigSchema)
   const before = await findBenchRig(caller.organizationId, id)

@@ -1,7 +1,7 @@
 import { benchRigSchema } from '#shared/utils/equipment-schemas'
 
 export default defineEventHandler(async (event) => {
-  const caller = await requireRole(event, 'tester')
+  const caller = await requireRole(event, 'record')
   const input = await parseBody(event, benchRigSchema)
   await assertSite(caller.organizationId, input.siteId)
   await assertPairableCounter(caller.organizationId, input.counterId)

@@ -3,7 +3,7 @@ import { updateCounterSchema } from '#shared/utils/equipment-schemas'
 import { idParamSchema } from '#shared/utils/user-schemas'
 
 export default defineEventHandler(async (event) => {
-  const caller = await requireRole(event, 'tester')
+  const caller = await requireRole(event, 'record')
   const { id } = parseParams(event, idParamSchema)
   const changes = await parseBody(event, updateCounterSchema)
   const before = await findCounter(caller.organizationId, id)

@@ -1,7 +1,7 @@
 import { counterSchema } from '#shared/utils/equipment-schemas'
 
 export default defineEventHandler(async (event) => {
-  const caller = await requireRole(event, 'tester')
+  const caller = await requireRole(event, 'record')
   const input = await parseBody(event, counterSchema)
   await assertSite(caller.organizationId, input.siteId)
   const created = await useDb().transaction(async (tx) => {
