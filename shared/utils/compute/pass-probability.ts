@@ -1,5 +1,5 @@
 import { sampleVolumeCm3 } from './counting-stats'
-import { harmonicMeanFitFactor, meetsPassLevel } from './fit-factor'
+import { harmonicMeanFitFactor } from './fit-factor'
 import type { Protocol } from './protocols'
 import type { RandomSource } from './simulation-core'
 import { mulberry32, samplePoisson, trueFactorFor, validate } from './simulation-core'
