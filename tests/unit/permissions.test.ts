@@ -16,11 +16,11 @@ const EXPECTED: [Permission, [admin: boolean, tester: boolean, reviewer: boolean
   ['read-program', [Y, Y, Y, Y, N], 'reviewer: read everything; trainer: read-only elsewhere; wearer: only their own'],
   ['read-fit-tests', [Y, Y, Y, Y, Y], 'wearer: their own records (the route narrows to them)'],
   ['review', [Y, N, Y, N, N], 'reviewer: countersign or query results, exposure assessments'],
-  ['export', [Y, Y, Y, N, N], 'reviewer: exports; tester: the records they keep'],
-  ['see-insights', [Y, Y, Y, N, N], 'reviewer: insights; tester: the trends of their own tests'],
-  ['use-lab', [Y, Y, N, Y, N], 'trainer: the training lab and practice tests'],
+  ['export', [Y, Y, Y, N, N], 'reviewer: exports; tester: export'],
+  ['see-insights', [Y, Y, Y, N, N], 'reviewer: insights; tester: insights of the tests they run'],
+  ['use-lab', [Y, Y, N, Y, N], 'trainer: the training lab and practice tests; tester: the training lab'],
   ['read-practice', [Y, Y, Y, Y, N], 'reviewer: read everything'],
-  ['clear-practice', [Y, N, N, Y, N], 'trainer: practice tests are theirs to clear'],
+  ['clear-practice', [Y, N, N, Y, N], 'trainer: the training lab and practice tests (clearing a practice set is theirs)'],
   ['own-status', [Y, N, N, N, Y], 'wearer: their own card and due dates']
 ]
 
