@@ -11,5 +11,5 @@ export default defineEventHandler(async (event) => {
     return row!
   }).catch(error => duplicateSerial(error, 'bench rig'))
   setResponseStatus(event, 201)
-  return created
+  return benchRigResponse(created)
 })

@@ -10,5 +10,5 @@ export default defineEventHandler(async (event) => {
     return row!
   }).catch(error => duplicateSerial(error, 'counter'))
   setResponseStatus(event, 201)
-  return created
+  return counterResponse(created)
 })
