@@ -5,6 +5,7 @@ import { ensureDependencies } from './lib/deps.mjs'
 import { die, log } from './lib/log.mjs'
 import { run } from './lib/run.mjs'
 import { sessionPassword } from './lib/secrets.mjs'
+import { shutdownOnExit } from './lib/shutdown.mjs'
 
 const projectDir = fileURLToPath(new URL('..', import.meta.url))
 const dev = process.argv.includes('--dev')
@@ -17,31 +18,10 @@ const smtpPort = Number(process.env.SEALWRIGHT_SMTP_PORT || 2525)
 const mailHttpPort = Number(process.env.SEALWRIGHT_MAIL_HTTP_PORT || 8025)
 const externalSmtp = process.env.NUXT_MAIL_SMTP_URL
 
-const stops = []
-let stopping = false
-async function shutdown(code = 0) {
-  if (stopping) return
-  stopping = true
-  log.step('Stopping…')
-  for (const stop of stops.reverse()) {
-    try {
-      await stop()
-    } catch (error) {
-      log.warn(String(error?.message ?? error))
-    }
-  }
-  log.ok('Stopped.')
-  process.exit(code)
-}
-process.on('SIGINT', () => shutdown(0))
-process.on('SIGTERM', () => shutdown(0))
-process.on('SIGHUP', () => shutdown(0))
-// When npm (or the shell it used) is killed without passing the signal on, this process would be
-// orphaned with PostgreSQL and the app still running: notice the parent going and stop cleanly.
-const parentAtStart = process.ppid
-setInterval(() => {
-  if (process.ppid !== parentAtStart) shutdown(0)
-}, 1000).unref()
+const { stops, exitAfterStopping: shutdown } = shutdownOnExit({
+  onStopping: () => log.step('Stopping…'),
+  onStopped: () => log.ok('Stopped.')
+})
 
 try {
   await ensureDependencies(projectDir)

@@ -1,11 +1,12 @@
 // `npm test`: the whole suite on a fresh test database (never the demo database), starting what it needs.
-// Lint, typecheck, then vitest's unit, api and e2e projects against a built app on its own ports.
+// Lint and typecheck (before any service starts), then vitest's unit, api and e2e projects against a built app on its own ports.
 import { fileURLToPath } from 'node:url'
 import { join } from 'node:path'
 import { randomBytes } from 'node:crypto'
 import { ensureDependencies } from './lib/deps.mjs'
 import { log } from './lib/log.mjs'
 import { run } from './lib/run.mjs'
+import { shutdownOnExit } from './lib/shutdown.mjs'
 
 const projectDir = fileURLToPath(new URL('..', import.meta.url))
 const bin = name => join(projectDir, 'node_modules', '.bin', name)
@@ -15,30 +16,7 @@ const smtpPort = Number(process.env.SEALWRIGHT_TEST_SMTP_PORT || 2526)
 const mailHttpPort = Number(process.env.SEALWRIGHT_TEST_MAIL_HTTP_PORT || 8026)
 const vitestArgs = process.argv.slice(2)
 
-const stops = []
-async function stopAll() {
-  for (const stop of stops.reverse()) {
-    try {
-      await stop()
-    } catch (error) {
-      log.warn(String(error?.message ?? error))
-    }
-  }
-  stops.length = 0
-}
-for (const signal of ['SIGINT', 'SIGTERM', 'SIGHUP']) {
-  process.on(signal, async () => {
-    await stopAll()
-    process.exit(130)
-  })
-}
-// Stop the services this run started if npm, or the shell it used, goes away without telling us.
-const parentAtStart = process.ppid
-setInterval(async () => {
-  if (process.ppid === parentAtStart) return
-  await stopAll()
-  process.exit(130)
-}, 1000).unref()
+const { stops, stopAll } = shutdownOnExit({ signalCode: 130 })
 
 const results = []
 async function stage(name, fn) {
@@ -55,9 +33,18 @@ async function stage(name, fn) {
 let exitCode = 1
 try {
   await ensureDependencies(projectDir)
+  // The cheap checks first, before any service starts: a lint or type error shows in seconds.
+  const lintOk = await stage('Lint (eslint)', async () => await run(bin('eslint'), ['.', '--max-warnings=0'], { cwd: projectDir }) === 0)
+  const typesOk = await stage('Typecheck (nuxt typecheck)', async () => await run(bin('nuxt'), ['typecheck'], { cwd: projectDir }) === 0)
+
   const { ensureDatabaseServer, startMailCatcher, startBuiltApp, appEnv } = await import('./lib/services.mjs')
   const { prepareDatabase } = await import('./lib/database.mjs')
   const { ensureBuild } = await import('./lib/build.mjs')
+
+  const buildOk = await stage('Build', async () => {
+    await ensureBuild(projectDir)
+    return true
+  })
 
   const testDbUrl = process.env.NUXT_TEST_DATABASE_URL
   const server = await ensureDatabaseServer(projectDir, { externalUrl: testDbUrl, port: pgPort })
@@ -67,13 +54,6 @@ try {
   // The test database gets the demo scenario too, so the e2e tests can sign in as the demo roles.
   const seeded = await run(bin('tsx'), ['scripts/seed-demo.ts'], { cwd: projectDir, env: { ...process.env, DATABASE_URL: databaseUrl } })
   if (seeded !== 0) throw new Error('Loading the demo scenario into the test database failed.')
-
-  const lintOk = await stage('Lint (eslint)', async () => await run(bin('eslint'), ['.', '--max-warnings=0'], { cwd: projectDir }) === 0)
-  const typesOk = await stage('Typecheck (vue-tsc)', async () => await run(bin('nuxt'), ['typecheck'], { cwd: projectDir }) === 0)
-  const buildOk = await stage('Build', async () => {
-    await ensureBuild(projectDir)
-    return true
-  })
 
   const mail = await startMailCatcher(projectDir, { smtpPort, httpPort: mailHttpPort, quiet: true })
   stops.push(mail.stop)

@@ -1,10 +1,10 @@
-import { roleAllows } from '#shared/utils/roles'
+import { roleMay } from '#shared/utils/permissions'
 
-/** Testers and admins manage equipment; reviewers and trainers only read. The server checks again. */
+/** Who manages equipment, from the permission table; reviewers and trainers only read. The server checks again. */
 export function useEquipmentRole() {
   const { user } = useUserSession()
   return {
-    canManage: computed(() => Boolean(user.value && roleAllows(user.value.role, ['tester']))),
-    isAdmin: computed(() => user.value?.role === 'admin')
+    canManage: computed(() => roleMay(user.value?.role, 'record')),
+    isAdmin: computed(() => roleMay(user.value?.role, 'administer'))
   }
 }

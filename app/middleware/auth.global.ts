@@ -1,12 +1,15 @@
-import { roleAllows } from '#shared/utils/roles'
-import type { Role } from '#shared/utils/roles'
+import type { Permission } from '#shared/utils/permissions'
+import { roleMay } from '#shared/utils/permissions'
 
 declare module '#app' {
   interface PageMeta {
     /** Pages anyone may open without signing in. */
     public?: boolean
-    /** Roles that may open the page (admins always may). The server still checks every request. */
-    roles?: Role[]
+    /**
+     * What a role must be allowed to do to open the page (shared/utils/permissions.ts; admins
+     * always may). Comfort only: the server checks every request with the same table.
+     */
+    may?: Permission
   }
 }
 
@@ -16,8 +19,8 @@ export default defineNuxtRouteMiddleware(async (to) => {
   if (!loggedIn.value) {
     return navigateTo({ path: '/sign-in', query: to.fullPath !== '/' ? { next: to.fullPath } : {} })
   }
-  const roles = to.meta.roles
-  if (roles && user.value && !roleAllows(user.value.role, roles)) {
+  const permission = to.meta.may
+  if (permission && user.value && !roleMay(user.value.role, permission)) {
     return abortNavigation(createError({ statusCode: 403, message: 'Your role does not open this page.' }))
   }
 })

@@ -5,9 +5,8 @@ import { randomUUID } from 'node:crypto'
 import type { PassLevelRuleSetKey } from '../../shared/utils/compute'
 import { evaluateExposureAssessment } from '../../shared/utils/compute/exposure-assessment'
 import type { AssessmentStoredInput } from '../../shared/utils/exposure-schemas'
-import type { SeedDb } from './db'
+import type { SeedDb, SeededOrganization } from './db'
 import { schema } from './db'
-import type { SeededOrganization } from './demo'
 
 interface DemoAssessment {
   title: string

@@ -10,3 +10,11 @@ export function connect(url: string) {
 
 export type SeedDb = ReturnType<typeof connect>['db']
 export { schema }
+
+/** One demo organization as the seed steps see it, after its accounts and sites exist. */
+export interface SeededOrganization {
+  id: string
+  slug: string
+  siteIds: string[]
+  userIds: Record<string, string>
+}

@@ -1,6 +1,6 @@
 // Loads the invented demo scenario of DOMAIN.md. Run by `npm start` on an empty database only.
 import { DEMO_ORGANIZATIONS, DEMO_PASSWORD, demoEmail } from './demo-accounts.mjs'
-import type { SeedDb } from './db'
+import type { SeedDb, SeededOrganization } from './db'
 import { schema } from './db'
 import { seedAssessments } from './assessments'
 import { seedFitTests } from './fit-tests'
@@ -8,13 +8,6 @@ import { seedOversight } from './oversight'
 import { hashPassword } from './hash'
 import { seedEquipment } from './equipment'
 import { seedInsights } from './insights'
-
-export interface SeededOrganization {
-  id: string
-  slug: string
-  siteIds: string[]
-  userIds: Record<string, string>
-}
 
 export async function seedDemo(db: SeedDb, onProgress: (text: string) => void = () => {}): Promise<SeededOrganization[]> {
   const passwordHash = await hashPassword(DEMO_PASSWORD)

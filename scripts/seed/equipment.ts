@@ -5,9 +5,8 @@ import { computeHeadformTest, evaluateAcceptanceRule } from '../../shared/utils/
 import { DEFAULT_TEMPLATES } from '../../shared/utils/readiness-defaults'
 import type { ReadinessStep, StepEntry } from '../../shared/utils/readiness-schemas'
 import { subChecksFor } from '../../shared/utils/mask-schemas'
-import type { SeedDb } from './db'
+import type { SeedDb, SeededOrganization } from './db'
 import { schema } from './db'
-import type { SeededOrganization } from './demo'
 
 const DAY_MS = 86_400_000
 type Tx = Parameters<Parameters<SeedDb['transaction']>[0]>[0]

@@ -7,9 +7,8 @@ import { BUILT_IN_PROTOCOLS, findBuiltInProtocol, mulberry32, normalQuantile, re
 import type { PassLevelRuleSetKey, Protocol } from '../../shared/utils/compute'
 import { localDate, storedFieldsOf } from '../../shared/utils/fit-test-evaluate'
 import type { FitTestEntry } from '../../shared/utils/fit-test-schemas'
-import type { SeedDb } from './db'
+import type { SeedDb, SeededOrganization } from './db'
 import { schema } from './db'
-import type { SeededOrganization } from './demo'
 import { insertCheck } from './equipment'
 
 const FIRST = ['Ada', 'Bram', 'Cleo', 'Dara', 'Emrys', 'Fenna', 'Gethin', 'Hollis', 'Ines', 'Jory', 'Kit', 'Linnea', 'Marek', 'Nell', 'Oren', 'Perrin', 'Quill', 'Rhian', 'Soren', 'Tove', 'Ulla', 'Vance', 'Wren', 'Yara', 'Zeb', 'Anouk', 'Bastian', 'Corin', 'Delphine', 'Eamon']

@@ -10,9 +10,8 @@ import { evaluateFitTest, localDate, storedFieldsOf } from '../../shared/utils/f
 import type { FitTestEntry } from '../../shared/utils/fit-test-schemas'
 import { exerciseInsightRows } from '../../shared/utils/insight-rows'
 import { hashPassword } from './hash'
-import type { SeedDb } from './db'
+import type { SeedDb, SeededOrganization } from './db'
 import { schema } from './db'
-import type { SeededOrganization } from './demo'
 import { insertCheck } from './equipment'
 
 interface Scenario {

@@ -3,9 +3,8 @@
 import { createHash } from 'node:crypto'
 import { and, eq } from 'drizzle-orm'
 import { nextDueDate } from '../../shared/utils/fit-test-evaluate'
-import type { SeedDb } from './db'
+import type { SeedDb, SeededOrganization } from './db'
 import { schema } from './db'
-import type { SeededOrganization } from './demo'
 
 function day(offsetDays: number) {
   return new Date(Date.now() + offsetDays * 86400_000).toISOString().slice(0, 10)

@@ -2,7 +2,7 @@ import { asc, eq } from 'drizzle-orm'
 
 /** What the calculator needs: the organization's rule set, its sites, and the roster to assign from. */
 export default defineEventHandler(async (event) => {
-  const caller = await requireRole(event, 'tester', 'reviewer', 'trainer')
+  const caller = await requireRole(event, 'read-program')
   const p = schema.people
   const [ruleSet, sites, people] = await Promise.all([
     assessmentRuleSetOf(caller.organizationId),

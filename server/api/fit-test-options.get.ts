@@ -3,7 +3,7 @@ import { retestIntervalMonths } from '#shared/utils/fit-test-evaluate'
 
 /** What the new-test form offers: the roster, catalogue, counters, sites, protocols and rules. */
 export default defineEventHandler(async (event) => {
-  const caller = await requireRole(event, 'tester', 'reviewer', 'trainer')
+  const caller = await requireRole(event, 'read-program')
   const db = useDb()
   const [org, sites, models, counters, people, units] = await Promise.all([
     findOrganization(caller.organizationId),

@@ -2,7 +2,7 @@ import Papa from 'papaparse'
 
 /** The protection gaps as CSV, one row per person and assessment. */
 export default defineEventHandler(async (event) => {
-  const caller = await requireRole(event, 'reviewer')
+  const caller = await requireRole(event, 'review')
   const today = todayUtc()
   const gaps = await protectionGaps(caller.organizationId, today)
   const csv = Papa.unparse({

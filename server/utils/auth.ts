@@ -1,7 +1,8 @@
 import { and, eq } from 'drizzle-orm'
 import type { H3Event } from 'h3'
 import type { Role } from '#shared/utils/roles'
-import { roleAllows } from '#shared/utils/roles'
+import type { Permission } from '#shared/utils/permissions'
+import { roleMay } from '#shared/utils/permissions'
 
 export interface Caller {
   id: string
@@ -15,10 +16,11 @@ export interface Caller {
  * The one gate every API route passes through. It re-reads the user from the database on each
  * request, so a deactivated user or a changed role takes effect at once, whatever the cookie says.
  * A cookie older than the user's session version is refused too (see `endAllSessions`).
- * Anonymous → 401; signed in with a role not in `allowed` → 403. Admins pass every role check.
- * With no roles given, any active signed-in user passes.
+ * Anonymous → 401; signed in with a role the permission table (shared/utils/permissions.ts) does
+ * not give `permission` → 403. Admins pass every check. With no permission, any active signed-in
+ * user passes.
  */
-export async function requireRole(event: H3Event, ...allowed: Role[]): Promise<Caller> {
+export async function requireRole(event: H3Event, permission?: Permission): Promise<Caller> {
   const session = await getUserSession(event)
   const sessionUser = session.user
   if (!sessionUser?.id) {
@@ -45,7 +47,7 @@ export async function requireRole(event: H3Event, ...allowed: Role[]): Promise<C
     await clearUserSession(event)
     throw httpError(401, 'Your session has ended. Sign in again.')
   }
-  if (allowed.length > 0 && !roleAllows(user.role, allowed)) {
+  if (permission && !roleMay(user.role, permission)) {
     throw httpError(403, 'Your role does not allow this.')
   }
   const caller: Caller = { id: user.id, organizationId: user.organizationId, role: user.role, email: user.email, displayName: user.displayName }

@@ -18,10 +18,11 @@ export async function siteTimeZone(organizationId: string, siteId: string | null
 
 export async function listCounters(organizationId: string, { includeRetired = false } = {}) {
   const c = schema.counters
-  return useDb().select({ ...getTableColumns(c), siteName: schema.sites.name }).from(c)
+  const rows = await useDb().select({ ...getTableColumns(c), siteName: schema.sites.name }).from(c)
     .leftJoin(schema.sites, eq(schema.sites.id, c.siteId))
     .where(and(eq(c.organizationId, organizationId), includeRetired ? undefined : eq(c.active, true)))
     .orderBy(asc(c.serialNumber))
+  return rows.map(row => ({ ...counterResponse(row), siteName: row.siteName }))
 }
 
 export async function findCounter(organizationId: string, id: string) {
@@ -33,11 +34,12 @@ export async function findCounter(organizationId: string, id: string) {
 
 export async function listBenchRigs(organizationId: string, { includeRetired = false } = {}) {
   const r = schema.benchRigs
-  return useDb().select({ ...getTableColumns(r), siteName: schema.sites.name, counterSerial: schema.counters.serialNumber }).from(r)
+  const rows = await useDb().select({ ...getTableColumns(r), siteName: schema.sites.name, counterSerial: schema.counters.serialNumber }).from(r)
     .leftJoin(schema.sites, eq(schema.sites.id, r.siteId))
     .innerJoin(schema.counters, eq(schema.counters.id, r.counterId))
     .where(and(eq(r.organizationId, organizationId), includeRetired ? undefined : eq(r.active, true)))
     .orderBy(asc(r.serialNumber))
+  return rows.map(row => ({ ...benchRigResponse(row), siteName: row.siteName, counterSerial: row.counterSerial }))
 }
 
 export async function findBenchRig(organizationId: string, id: string) {
@@ -63,4 +65,22 @@ export async function assertPairableCounter(organizationId: string, counterId: s
   if (!row || !row.active) {
     throw httpError(400, 'Check the form: pair the rig with one of your active counters.', { fieldErrors: { counterId: 'Choose one of your active counters.' } })
   }
+}
+
+/** What a route sends for a counter: the fields a page shows, never the whole row. */
+export function counterResponse(row: CounterRow) {
+  return {
+    id: row.id,
+    serialNumber: row.serialNumber,
+    description: row.description,
+    sampleFlowCm3PerMin: row.sampleFlowCm3PerMin,
+    calibrationDueOn: row.calibrationDueOn,
+    siteId: row.siteId,
+    active: row.active
+  }
+}
+
+/** What a route sends for a bench rig: the fields a page shows, never the whole row. */
+export function benchRigResponse(row: BenchRigRow) {
+  return { id: row.id, serialNumber: row.serialNumber, description: row.description, counterId: row.counterId, siteId: row.siteId, active: row.active }
 }

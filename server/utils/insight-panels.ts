@@ -5,7 +5,7 @@ import type { InsightFilters } from '#shared/utils/insight-schemas'
 
 /** Reviewers and admins use insights; testers read them. Filters from the query, checked. */
 export async function insightRequest(event: H3Event): Promise<{ caller: Caller, filters: InsightFilters }> {
-  const caller = await requireRole(event, 'reviewer', 'tester')
+  const caller = await requireRole(event, 'see-insights')
   const filters = parseQuery(event, insightFiltersSchema)
   return { caller, filters }
 }

@@ -1,7 +1,7 @@
 import { FIT_CATEGORY_LABELS, PASS_LEVEL_RULE_SETS, RESPIRATOR_CLASSES, validatePassLevelOverrides } from '#shared/utils/compute'
 import type { FitCategory, PassLevelOverrides, PassLevelRuleSetKey } from '#shared/utils/compute'
 
-type Organization = typeof schema.organizations.$inferSelect
+type Organization = OrganizationRow
 
 export function ruleSetOf(org: Pick<Organization, 'ruleSet'>) {
   return PASS_LEVEL_RULE_SETS[org.ruleSet as PassLevelRuleSetKey] ?? PASS_LEVEL_RULE_SETS['us-osha']

@@ -2,8 +2,6 @@ import { and, asc, eq } from 'drizzle-orm'
 import type { z } from 'zod'
 import type { listPeopleQuerySchema } from '#shared/utils/person-schemas'
 
-export type PersonRow = typeof schema.people.$inferSelect
-
 export async function findPerson(organizationId: string, id: string): Promise<PersonRow> {
   const [row] = await useDb().select().from(schema.people).where(and(eq(schema.people.organizationId, organizationId), eq(schema.people.id, id)))
   if (!row) throw httpError(404, 'No such person in your roster.')

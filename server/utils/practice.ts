@@ -4,8 +4,6 @@ import type { Protocol } from '#shared/utils/compute'
 import { evaluateFitTest } from '#shared/utils/fit-test-evaluate'
 import type { FitTestEntry } from '#shared/utils/fit-test-schemas'
 
-export type PracticeTestRow = typeof schema.practiceTests.$inferSelect
-
 function notFound(what: string): never {
   throw httpError(404, `No such ${what} in your organization.`)
 }

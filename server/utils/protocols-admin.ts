@@ -1,7 +1,7 @@
 import { BUILT_IN_PROTOCOLS, findBuiltInProtocol } from '#shared/utils/compute'
 import type { Protocol } from '#shared/utils/compute'
 
-type Organization = typeof schema.organizations.$inferSelect
+type Organization = OrganizationRow
 
 /** The organization's own protocols, added by an admin. */
 export function customProtocolsOf(org: Pick<Organization, 'settings'>): Protocol[] {

@@ -1,6 +1,6 @@
 import type { DecimalMark } from '#shared/utils/number-reader'
 
-type Organization = typeof schema.organizations.$inferSelect
+type Organization = OrganizationRow
 
 /** The organization's decimal mark; point until an admin chooses a comma (DOMAIN.md "Typing numbers"). */
 export function decimalMarkOf(org: Pick<Organization, 'settings'>): DecimalMark {

@@ -1,7 +1,6 @@
 import { createHash, randomBytes } from 'node:crypto'
 import { and, eq, gt, isNull } from 'drizzle-orm'
-
-export type TokenPurpose = 'invitation' | 'password-reset'
+import type { TokenPurpose } from '#shared/utils/enums'
 
 export const TOKEN_LIFETIME_HOURS: Record<TokenPurpose, number> = {
   'invitation': 72,

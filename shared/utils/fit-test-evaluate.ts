@@ -4,6 +4,7 @@ import type { ComputeIssue, FitTestResult, Protocol } from './compute'
 import { computeFitTest, parseCountSeries, segmentsToFitTestInputs } from './compute'
 import type { FitTestEntry } from './fit-test-schemas'
 import { localDay } from './coverage'
+import type { FitTestKind } from './enums'
 
 export interface StoredFields {
   passLevel: number | null
@@ -19,7 +20,7 @@ export interface StoredFields {
  * recomputes from the inputs. `testedOn` is the test's calendar date in the site's time zone.
  */
 export function storedFieldsOf(input: {
-  kind: 'quantitative' | 'qualitative'
+  kind: FitTestKind
   protocol: Protocol | null
   entry: FitTestEntry
   seriesText?: string | null

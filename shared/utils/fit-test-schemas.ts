@@ -2,6 +2,7 @@ import { z } from 'zod'
 import { calendarDate, changesSchema, databaseInteger, pageNumber, pastInstant } from './input-ranges'
 import { DECIMAL_MARKS } from './number-reader'
 import type { DecimalMark } from './number-reader'
+import { FIT_TEST_KINDS } from './enums'
 
 /**
  * Items checked before a fit test starts. Any one not met blocks the test:
@@ -81,7 +82,7 @@ const isoInstant = pastInstant('Give the test time as a date and time.')
 
 export const createFitTestSchema = z.object({
   idempotencyKey: z.string().min(8, { error: 'The idempotency key is too short.' }).max(100),
-  kind: z.enum(['quantitative', 'qualitative']).default('quantitative'),
+  kind: z.enum(FIT_TEST_KINDS).default('quantitative'),
   personId: z.uuid({ error: 'Choose the person being tested.' }),
   respiratorModelId: z.uuid({ error: 'Choose the respirator model.' }),
   respiratorSize: z.string({ error: 'Choose the size.' }).trim().min(1, { error: 'Choose the size.' }).max(40),
@@ -128,7 +129,7 @@ export const listFitTestsQuerySchema = z.object({
   personId: z.uuid().optional(),
   siteId: z.uuid().optional(),
   result: z.enum(['pass', 'fail', 'draft', 'withdrawn']).optional(),
-  kind: z.enum(['quantitative', 'qualitative']).optional(),
+  kind: z.enum(FIT_TEST_KINDS).optional(),
   from: calendarDate('From must be a date (YYYY-MM-DD).').optional(),
   to: calendarDate('To must be a date (YYYY-MM-DD).').optional(),
   q: z.string().trim().max(120).optional(),

@@ -1,14 +1,15 @@
 import { z } from 'zod'
 import { calendarDate, changesSchema, pageNumber } from './input-ranges'
+import { MEDICAL_CLEARANCE_STATUSES } from './enums'
+import type { MedicalClearanceStatus } from './enums'
 
-export const MEDICAL_CLEARANCE_LABELS = {
+export const MEDICAL_CLEARANCE_LABELS: Readonly<Record<MedicalClearanceStatus, string>> = {
   'cleared': 'Cleared',
   'cleared-with-limits': 'Cleared with limits',
   'pending': 'Awaiting evaluation',
   'not-cleared': 'Not cleared'
-} as const
-export type MedicalClearanceStatus = keyof typeof MEDICAL_CLEARANCE_LABELS
-const statuses = Object.keys(MEDICAL_CLEARANCE_LABELS) as [MedicalClearanceStatus, ...MedicalClearanceStatus[]]
+}
+const statuses = MEDICAL_CLEARANCE_STATUSES
 
 const optionalText = (max: number, label: string) => z.string().trim().max(max, { error: `${label}: use at most ${max} characters.` })
   .transform(v => v === '' ? null : v).nullable().optional()

@@ -3,7 +3,7 @@ import { updateBenchRigSchema } from '#shared/utils/equipment-schemas'
 import { idParamSchema } from '#shared/utils/user-schemas'
 
 export default defineEventHandler(async (event) => {
-  const caller = await requireRole(event, 'tester')
+  const caller = await requireRole(event, 'record')
   const { id } = parseParams(event, idParamSchema)
   const changes = await parseBody(event, updateBenchRigSchema)
   const before = await findBenchRig(caller.organizationId, id)
@@ -15,6 +15,6 @@ export default defineEventHandler(async (event) => {
       .returning()
     const action = changes.active === false ? 'retired' : changes.active === true && !before.active ? 'reinstated' : 'updated'
     await writeAudit(tx, caller, { entityType: 'bench-rig', entityId: id, action, before, after: changes })
-    return row!
+    return benchRigResponse(row!)
   }).catch(error => duplicateSerial(error, 'bench rig'))
 })

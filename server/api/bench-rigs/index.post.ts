@@ -1,7 +1,7 @@
 import { benchRigSchema } from '#shared/utils/equipment-schemas'
 
 export default defineEventHandler(async (event) => {
-  const caller = await requireRole(event, 'tester')
+  const caller = await requireRole(event, 'record')
   const input = await parseBody(event, benchRigSchema)
   await assertSite(caller.organizationId, input.siteId)
   await assertPairableCounter(caller.organizationId, input.counterId)
@@ -11,5 +11,5 @@ export default defineEventHandler(async (event) => {
     return row!
   }).catch(error => duplicateSerial(error, 'bench rig'))
   setResponseStatus(event, 201)
-  return created
+  return benchRigResponse(created)
 })

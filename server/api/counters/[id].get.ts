@@ -1,7 +1,7 @@
 import { idParamSchema } from '#shared/utils/user-schemas'
 
 export default defineEventHandler(async (event) => {
-  const caller = await requireRole(event, 'tester', 'reviewer', 'trainer')
+  const caller = await requireRole(event, 'read-program')
   const { id } = parseParams(event, idParamSchema)
-  return findCounter(caller.organizationId, id)
+  return counterResponse(await findCounter(caller.organizationId, id))
 })

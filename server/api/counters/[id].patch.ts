@@ -3,7 +3,7 @@ import { updateCounterSchema } from '#shared/utils/equipment-schemas'
 import { idParamSchema } from '#shared/utils/user-schemas'
 
 export default defineEventHandler(async (event) => {
-  const caller = await requireRole(event, 'tester')
+  const caller = await requireRole(event, 'record')
   const { id } = parseParams(event, idParamSchema)
   const changes = await parseBody(event, updateCounterSchema)
   const before = await findCounter(caller.organizationId, id)
@@ -14,6 +14,6 @@ export default defineEventHandler(async (event) => {
       .returning()
     const action = changes.active === false ? 'retired' : changes.active === true && !before.active ? 'reinstated' : 'updated'
     await writeAudit(tx, caller, { entityType: 'counter', entityId: id, action, before, after: changes })
-    return row!
+    return counterResponse(row!)
   }).catch(error => duplicateSerial(error, 'counter'))
 })

@@ -1,7 +1,7 @@
 import { counterSchema } from '#shared/utils/equipment-schemas'
 
 export default defineEventHandler(async (event) => {
-  const caller = await requireRole(event, 'tester')
+  const caller = await requireRole(event, 'record')
   const input = await parseBody(event, counterSchema)
   await assertSite(caller.organizationId, input.siteId)
   const created = await useDb().transaction(async (tx) => {
@@ -10,5 +10,5 @@ export default defineEventHandler(async (event) => {
     return row!
   }).catch(error => duplicateSerial(error, 'counter'))
   setResponseStatus(event, 201)
-  return created
+  return counterResponse(created)
 })

@@ -1,7 +1,7 @@
 import { dueListQuerySchema } from '#shared/utils/oversight-schemas'
 
 export default defineEventHandler(async (event) => {
-  const caller = await requireRole(event, 'tester', 'reviewer', 'trainer')
+  const caller = await requireRole(event, 'read-program')
   const q = parseQuery(event, dueListQuerySchema)
   const today = todayUtc()
   return { today, rows: await dueList(caller.organizationId, today, q) }

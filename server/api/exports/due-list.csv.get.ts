@@ -3,7 +3,7 @@ import { DUE_REASON_LABELS, dueListQuerySchema } from '#shared/utils/oversight-s
 
 /** The due list as CSV, one line per person and item. Cells that a spreadsheet would run as a formula are neutralised. */
 export default defineEventHandler(async (event) => {
-  const caller = await requireRole(event, 'tester', 'reviewer')
+  const caller = await requireRole(event, 'export')
   const q = parseQuery(event, dueListQuerySchema)
   const today = todayUtc()
   const rows = await dueList(caller.organizationId, today, q)

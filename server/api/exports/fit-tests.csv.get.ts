@@ -7,7 +7,7 @@ import { listFitTestsQuerySchema } from '#shared/utils/fit-test-schemas'
  * each exercise's concentrations and fit factor. No cell can run as a spreadsheet formula.
  */
 export default defineEventHandler(async (event) => {
-  const caller = await requireRole(event, 'tester', 'reviewer')
+  const caller = await requireRole(event, 'export')
   const query = parseQuery(event, listFitTestsQuerySchema)
   const [rows, org] = await Promise.all([exportFitTests(caller.organizationId, query), findOrganization(caller.organizationId)])
   const reviews = await reviewsOf(caller.organizationId, rows.map(r => r.id))

@@ -3,7 +3,7 @@ import { assessmentIdSchema } from '#shared/utils/exposure-schemas'
 
 /** One revision with the server's own result, its history, its assignments and who is protected. */
 export default defineEventHandler(async (event) => {
-  const caller = await requireRole(event, 'tester', 'reviewer', 'trainer')
+  const caller = await requireRole(event, 'read-program')
   const { id } = parseParams(event, assessmentIdSchema)
   const row = await findAssessment(caller.organizationId, id)
   const ruleSet = row.ruleSet === 'uk-hse' ? 'uk-hse' : 'us-osha'

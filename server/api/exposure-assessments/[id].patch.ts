@@ -3,7 +3,7 @@ import { assessmentIdSchema, updateAssessmentSchema } from '#shared/utils/exposu
 
 /** Edits a draft. A signed-off revision is never edited: revise it instead. */
 export default defineEventHandler(async (event) => {
-  const caller = await requireRole(event, 'reviewer')
+  const caller = await requireRole(event, 'review')
   const { id } = parseParams(event, assessmentIdSchema)
   const body = await parseBody(event, updateAssessmentSchema)
   const row = await findAssessment(caller.organizationId, id)

@@ -1,6 +1,6 @@
 /** The organization's exposure assessments (signed off, and drafts), with how many assigned people have a gap. */
 export default defineEventHandler(async (event) => {
-  const caller = await requireRole(event, 'tester', 'reviewer', 'trainer')
+  const caller = await requireRole(event, 'read-program')
   const [rows, gaps, sites] = await Promise.all([
     listAssessments(caller.organizationId),
     protectionGaps(caller.organizationId, todayUtc()),

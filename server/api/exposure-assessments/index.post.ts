@@ -3,7 +3,7 @@ import { saveAssessmentSchema } from '#shared/utils/exposure-schemas'
 
 /** Saves the calculator as a draft exposure assessment; the server recomputes every figure. */
 export default defineEventHandler(async (event) => {
-  const caller = await requireRole(event, 'reviewer')
+  const caller = await requireRole(event, 'review')
   const body = await parseBody(event, saveAssessmentSchema)
   const ruleSet = await assessmentRuleSetOf(caller.organizationId)
   const result = evaluateForSave(body, ruleSet)

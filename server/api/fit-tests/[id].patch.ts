@@ -4,7 +4,7 @@ import { idParamSchema } from '#shared/utils/user-schemas'
 import { definedOnly } from '#shared/utils/patch-schema'
 
 export default defineEventHandler(async (event) => {
-  const caller = await requireRole(event, 'tester')
+  const caller = await requireRole(event, 'record')
   const { id } = parseParams(event, idParamSchema)
   const { version, ...changes } = await parseBody(event, updateFitTestSchema)
   const before = await findFitTest(caller.organizationId, id)

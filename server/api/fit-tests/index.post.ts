@@ -3,7 +3,7 @@ import { createFitTestSchema } from '#shared/utils/fit-test-schemas'
 import { blankExerciseEntries, localDate } from '#shared/utils/fit-test-evaluate'
 
 export default defineEventHandler(async (event) => {
-  const caller = await requireRole(event, 'tester')
+  const caller = await requireRole(event, 'record')
   const input = await parseBody(event, createFitTestSchema)
   const t = schema.fitTests
   const existing = await useDb().select({ id: t.id }).from(t).where(and(eq(t.organizationId, caller.organizationId), eq(t.idempotencyKey, input.idempotencyKey)))

@@ -2,7 +2,7 @@ import { headformTestSchema } from '#shared/utils/mask-schemas'
 
 /** Stores the raw inputs of a headform test; the factor and verdict are recomputed, never taken from the client. */
 export default defineEventHandler(async (event) => {
-  const caller = await requireRole(event, 'tester')
+  const caller = await requireRole(event, 'record')
   const input = await parseBody(event, headformTestSchema)
   const plan = await planHeadformTest(caller.organizationId, input)
   const performedAt = new Date()

@@ -11,7 +11,7 @@ import { importHistoryRowSchema, importRowsSchema } from '#shared/utils/oversigh
  * due dates and status. Importing the same row again adds nothing (a natural key per row).
  */
 export default defineEventHandler(async (event) => {
-  const caller = await requireRole(event, 'tester')
+  const caller = await requireRole(event, 'record')
   const { rows, firstRow = 2 } = await parseBody(event, importRowsSchema)
   const org = await findOrganization(caller.organizationId)
   const decimalMark = ((org.settings as { decimalMark?: DecimalMark }).decimalMark) ?? 'point'

@@ -7,7 +7,7 @@ import { fieldErrorsOf } from '../../utils/validation'
  * employee number updates that person), bad ones come back with their row number and messages.
  */
 export default defineEventHandler(async (event) => {
-  const caller = await requireRole(event, 'tester')
+  const caller = await requireRole(event, 'record')
   const { rows } = await parseBody(event, importPeopleSchema)
   const firstRowAsked = Number(getQuery(event).firstRow ?? 2)
   const firstRow = Number.isSafeInteger(firstRowAsked) && firstRowAsked >= 1 ? firstRowAsked : 2

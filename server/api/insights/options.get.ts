@@ -3,7 +3,7 @@ import { BUILT_IN_PROTOCOLS } from '#shared/utils/compute'
 
 /** What the insights filters offer: sites, protocols, respirator models with sizes, testers. */
 export default defineEventHandler(async (event) => {
-  const caller = await requireRole(event, 'reviewer', 'tester')
+  const caller = await requireRole(event, 'see-insights')
   const db = useDb()
   const u = schema.users
   const [org, sites, models, testers] = await Promise.all([

@@ -1,7 +1,7 @@
 import { maskTypeSchema } from '#shared/utils/mask-schemas'
 
 export default defineEventHandler(async (event) => {
-  const caller = await requireRole(event, 'tester')
+  const caller = await requireRole(event, 'record')
   const input = await parseBody(event, maskTypeSchema)
   const created = await useDb().transaction(async (tx) => {
     const [row] = await tx.insert(schema.maskTypes).values({ ...input, organizationId: caller.organizationId }).returning()

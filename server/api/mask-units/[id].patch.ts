@@ -3,7 +3,7 @@ import { updateMaskUnitSchema } from '#shared/utils/mask-schemas'
 import { idParamSchema } from '#shared/utils/user-schemas'
 
 export default defineEventHandler(async (event) => {
-  const caller = await requireRole(event, 'tester')
+  const caller = await requireRole(event, 'record')
   const { id } = parseParams(event, idParamSchema)
   const changes = await parseBody(event, updateMaskUnitSchema)
   const before = await findMaskUnit(caller.organizationId, id)

@@ -1,7 +1,7 @@
 import { maskUnitSchema } from '#shared/utils/mask-schemas'
 
 export default defineEventHandler(async (event) => {
-  const caller = await requireRole(event, 'tester')
+  const caller = await requireRole(event, 'record')
   const input = await parseBody(event, maskUnitSchema)
   await assertUnitRefs(caller.organizationId, input)
   const id = await useDb().transaction(async (tx) => {

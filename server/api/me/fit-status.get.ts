@@ -2,7 +2,7 @@ import { and, eq } from 'drizzle-orm'
 
 /** A wearer's own standing: every respirator they are fitted for, each with its due date and fit card. */
 export default defineEventHandler(async (event) => {
-  const caller = await requireRole(event, 'wearer')
+  const caller = await requireRole(event, 'own-status')
   const p = schema.people
   const [person] = await useDb().select().from(p).where(and(eq(p.organizationId, caller.organizationId), eq(p.userId, caller.id)))
   if (!person) return { linked: false as const }

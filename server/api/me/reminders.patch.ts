@@ -3,7 +3,7 @@ import { optOutSchema } from '#shared/utils/oversight-schemas'
 
 /** A wearer turns reminder e-mail off or on for themselves. They stay on every due list. */
 export default defineEventHandler(async (event) => {
-  const caller = await requireRole(event, 'wearer')
+  const caller = await requireRole(event, 'own-status')
   const { reminderOptOut } = await parseBody(event, optOutSchema)
   const p = schema.people
   const updated = await useDb().transaction(async (tx) => {

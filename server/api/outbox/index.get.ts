@@ -10,7 +10,7 @@ interface CapturedMail {
 
 /** The demo outbox: mail captured by the local fake SMTP server, only this organization's. */
 export default defineEventHandler(async (event) => {
-  const caller = await requireRole(event, 'admin')
+  const caller = await requireRole(event, 'administer')
   const url = useRuntimeConfig(event).mail.outboxUrl
   if (!url) {
     throw httpError(404, 'There is no outbox here: mail goes to a real SMTP server.')

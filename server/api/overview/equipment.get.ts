@@ -1,4 +1,4 @@
 export default defineEventHandler(async (event) => {
-  const caller = await requireRole(event, 'tester', 'reviewer', 'trainer')
+  const caller = await requireRole(event, 'read-program')
   return equipmentOverview(caller.organizationId)
 })

@@ -6,7 +6,7 @@ import { passLevelOverridesSchema } from '#shared/utils/pass-level-schemas'
  * A level below the rule set is refused, never raised silently. Finished records keep theirs.
  */
 export default defineEventHandler(async (event) => {
-  const caller = await requireRole(event, 'admin')
+  const caller = await requireRole(event, 'administer')
   const body = await parseBody(event, passLevelOverridesSchema)
   const organization = await findOrganization(caller.organizationId)
   const overrides = checkedOverrides(organization, body)

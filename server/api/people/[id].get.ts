@@ -3,7 +3,7 @@ import { idParamSchema } from '#shared/utils/user-schemas'
 import { listFitTestsQuerySchema } from '#shared/utils/fit-test-schemas'
 
 export default defineEventHandler(async (event) => {
-  const caller = await requireRole(event, 'tester', 'reviewer', 'trainer')
+  const caller = await requireRole(event, 'read-program')
   const { id } = parseParams(event, idParamSchema)
   const person = await findPerson(caller.organizationId, id)
   const today = todayUtc()

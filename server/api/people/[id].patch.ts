@@ -3,7 +3,7 @@ import { updatePersonSchema } from '#shared/utils/person-schemas'
 import { idParamSchema } from '#shared/utils/user-schemas'
 
 export default defineEventHandler(async (event) => {
-  const caller = await requireRole(event, 'tester')
+  const caller = await requireRole(event, 'record')
   const { id } = parseParams(event, idParamSchema)
   const parsed = await parseBody(event, updatePersonSchema)
   // Only the fields the body carries change; everything else stays as it was.

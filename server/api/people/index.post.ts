@@ -1,7 +1,7 @@
 import { personSchema } from '#shared/utils/person-schemas'
 
 export default defineEventHandler(async (event) => {
-  const caller = await requireRole(event, 'tester')
+  const caller = await requireRole(event, 'record')
   const input = await parseBody(event, personSchema)
   await assertSiteOf(caller.organizationId, input.siteId)
   const person = await useDb().transaction(async (tx) => {

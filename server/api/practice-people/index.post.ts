@@ -1,7 +1,7 @@
 import { createPracticePersonSchema } from '#shared/utils/practice-schemas'
 
 export default defineEventHandler(async (event) => {
-  const caller = await requireRole(event, 'trainer', 'tester')
+  const caller = await requireRole(event, 'use-lab')
   const input = await parseBody(event, createPracticePersonSchema)
   const set = await findPracticeSet(caller.organizationId, input.practiceSetId)
   const row = await useDb().transaction(async (tx) => {

@@ -3,7 +3,7 @@ import { idParamSchema } from '#shared/utils/user-schemas'
 
 /** Clears a practice set: its practice people and practice tests go with it, in one audited step. */
 export default defineEventHandler(async (event) => {
-  const caller = await requireRole(event, 'trainer')
+  const caller = await requireRole(event, 'clear-practice')
   const { id } = parseParams(event, idParamSchema)
   const set = await findPracticeSet(caller.organizationId, id)
   const db = useDb()

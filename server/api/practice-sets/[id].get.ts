@@ -2,7 +2,7 @@ import { and, asc, desc, eq } from 'drizzle-orm'
 import { idParamSchema } from '#shared/utils/user-schemas'
 
 export default defineEventHandler(async (event) => {
-  const caller = await requireRole(event, 'trainer', 'tester', 'reviewer')
+  const caller = await requireRole(event, 'read-practice')
   const { id } = parseParams(event, idParamSchema)
   const set = await findPracticeSet(caller.organizationId, id)
   const db = useDb()

@@ -1,7 +1,7 @@
 import { createPracticeSetSchema } from '#shared/utils/practice-schemas'
 
 export default defineEventHandler(async (event) => {
-  const caller = await requireRole(event, 'trainer', 'tester')
+  const caller = await requireRole(event, 'use-lab')
   const input = await parseBody(event, createPracticeSetSchema)
   const row = await useDb().transaction(async (tx) => {
     const [set] = await tx.insert(schema.practiceSets).values({ organizationId: caller.organizationId, name: input.name, createdByUserId: caller.id }).returning()

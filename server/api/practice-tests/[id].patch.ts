@@ -4,7 +4,7 @@ import { updatePracticeTestSchema } from '#shared/utils/practice-schemas'
 import { idParamSchema } from '#shared/utils/user-schemas'
 
 export default defineEventHandler(async (event) => {
-  const caller = await requireRole(event, 'trainer', 'tester')
+  const caller = await requireRole(event, 'use-lab')
   const { id } = parseParams(event, idParamSchema)
   const { version, ...changes } = await parseBody(event, updatePracticeTestSchema)
   const before = await findPracticeTest(caller.organizationId, id)

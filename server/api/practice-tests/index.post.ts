@@ -4,7 +4,7 @@ import { blankExerciseEntries } from '#shared/utils/fit-test-evaluate'
 import { createPracticeTestSchema } from '#shared/utils/practice-schemas'
 
 export default defineEventHandler(async (event) => {
-  const caller = await requireRole(event, 'trainer', 'tester')
+  const caller = await requireRole(event, 'use-lab')
   const input = await parseBody(event, createPracticeTestSchema)
   const t = schema.practiceTests
   const [existing] = await useDb().select().from(t).where(and(eq(t.organizationId, caller.organizationId), eq(t.idempotencyKey, input.idempotencyKey)))

@@ -3,7 +3,7 @@ import { protocolKeyParamSchema } from '#shared/utils/protocol-admin-schemas'
 
 /** Stops offering a custom protocol for new tests; records keep their own copy of it. */
 export default defineEventHandler(async (event) => {
-  const caller = await requireRole(event, 'admin')
+  const caller = await requireRole(event, 'administer')
   const { key } = parseParams(event, protocolKeyParamSchema)
   const org = await findOrganization(caller.organizationId)
   const existing = customProtocolsOf(org)

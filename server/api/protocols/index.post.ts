@@ -3,7 +3,7 @@ import { MAX_CUSTOM_PROTOCOLS, customProtocolSchema } from '#shared/utils/protoc
 
 /** Adds a custom protocol, checked with the computation module's protocol schema. */
 export default defineEventHandler(async (event) => {
-  const caller = await requireRole(event, 'admin')
+  const caller = await requireRole(event, 'administer')
   const protocol = await parseBody(event, customProtocolSchema)
   const org = await findOrganization(caller.organizationId)
   const existing = customProtocolsOf(org)

@@ -1,7 +1,7 @@
 import { startReadinessCheckSchema } from '#shared/utils/readiness-schemas'
 
 export default defineEventHandler(async (event) => {
-  const caller = await requireRole(event, 'tester')
+  const caller = await requireRole(event, 'record')
   const input = await parseBody(event, startReadinessCheckSchema)
   const plan = await planCheck(caller.organizationId, input)
   const id = await useDb().transaction(async (tx) => {

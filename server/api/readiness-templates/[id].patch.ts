@@ -3,7 +3,7 @@ import { readinessTemplateSchema, updateReadinessTemplateSchema } from '#shared/
 import { idParamSchema } from '#shared/utils/user-schemas'
 
 export default defineEventHandler(async (event) => {
-  const caller = await requireRole(event, 'admin')
+  const caller = await requireRole(event, 'administer')
   const { id } = parseParams(event, idParamSchema)
   const changes = await parseBody(event, updateReadinessTemplateSchema)
   const before = await findTemplate(caller.organizationId, id)

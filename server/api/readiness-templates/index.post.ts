@@ -1,7 +1,7 @@
 import { readinessTemplateSchema } from '#shared/utils/readiness-schemas'
 
 export default defineEventHandler(async (event) => {
-  const caller = await requireRole(event, 'admin')
+  const caller = await requireRole(event, 'administer')
   const input = await parseBody(event, readinessTemplateSchema)
   const created = await useDb().transaction(async (tx) => {
     const [row] = await tx.insert(schema.readinessTemplates).values({ ...input, organizationId: caller.organizationId }).returning()

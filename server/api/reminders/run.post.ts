@@ -3,6 +3,6 @@
  * Safe to call from several instances at once: each step is claimed once in the reminder log.
  */
 export default defineEventHandler(async (event) => {
-  const caller = await requireRole(event, 'admin')
+  const caller = await requireRole(event, 'administer')
   return runScheduledReminders(caller.organizationId, todayUtc())
 })

@@ -3,7 +3,7 @@ import { updateRespiratorModelSchema } from '#shared/utils/respirator-schemas'
 import { idParamSchema } from '#shared/utils/user-schemas'
 
 export default defineEventHandler(async (event) => {
-  const caller = await requireRole(event, 'admin')
+  const caller = await requireRole(event, 'administer')
   const { id } = parseParams(event, idParamSchema)
   const changes = await parseBody(event, updateRespiratorModelSchema)
   const before = await findRespiratorModel(caller.organizationId, id)

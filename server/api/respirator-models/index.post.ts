@@ -1,7 +1,7 @@
 import { respiratorModelSchema } from '#shared/utils/respirator-schemas'
 
 export default defineEventHandler(async (event) => {
-  const caller = await requireRole(event, 'admin')
+  const caller = await requireRole(event, 'administer')
   const input = await parseBody(event, respiratorModelSchema)
   const created = await useDb().transaction(async (tx) => {
     const [row] = await tx.insert(schema.respiratorModels).values({ ...input, organizationId: caller.organizationId }).onConflictDoNothing().returning()

@@ -2,7 +2,7 @@ import { insightFiltersSchema } from '#shared/utils/insight-schemas'
 
 /** Finished results awaiting countersign, oldest first, with coverage beside each. */
 export default defineEventHandler(async (event) => {
-  const caller = await requireRole(event, 'reviewer')
+  const caller = await requireRole(event, 'review')
   const filters = parseQuery(event, insightFiltersSchema)
   const { rows, total } = await reviewQueue(caller.organizationId, filters)
   const coverage = await findCoverageMany(caller.organizationId, rows.map(r => ({ ...r, performedAt: new Date(r.performedAt) })))

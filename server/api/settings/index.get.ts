@@ -1,4 +1,4 @@
 export default defineEventHandler(async (event) => {
-  const caller = await requireRole(event, 'admin')
+  const caller = await requireRole(event, 'administer')
   return settingsView(await findOrganization(caller.organizationId))
 })

@@ -3,7 +3,7 @@ import { settingsSchema } from '#shared/utils/settings-schemas'
 
 /** Changes only the settings sent; every other setting keeps its value. */
 export default defineEventHandler(async (event) => {
-  const caller = await requireRole(event, 'admin')
+  const caller = await requireRole(event, 'administer')
   const body = await parseBody(event, settingsSchema)
   const changes = Object.fromEntries(Object.entries(body).filter(([, value]) => value !== undefined))
   const organization = await findOrganization(caller.organizationId)

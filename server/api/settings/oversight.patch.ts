@@ -10,7 +10,7 @@ const bodySchema = z.object({
 
 /** Reminder and clearance-check settings, merged into the organization's settings without touching the rest. */
 export default defineEventHandler(async (event) => {
-  const caller = await requireRole(event, 'admin')
+  const caller = await requireRole(event, 'administer')
   const changes = await parseBody(event, bodySchema)
   const patch = Object.fromEntries(Object.entries(changes).filter(([, v]) => v !== undefined))
   const org = await findOrganization(caller.organizationId)

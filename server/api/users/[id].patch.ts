@@ -2,7 +2,7 @@ import { and, eq } from 'drizzle-orm'
 import { idParamSchema, updateUserSchema } from '#shared/utils/user-schemas'
 
 export default defineEventHandler(async (event) => {
-  const caller = await requireRole(event, 'admin')
+  const caller = await requireRole(event, 'administer')
   const { id } = parseParams(event, idParamSchema)
   const changes = await parseBody(event, updateUserSchema)
   const before = await findUser(caller.organizationId, id)

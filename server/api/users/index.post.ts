@@ -1,7 +1,7 @@
 import { createUserSchema } from '#shared/utils/user-schemas'
 
 export default defineEventHandler(async (event) => {
-  const caller = await requireRole(event, 'admin')
+  const caller = await requireRole(event, 'administer')
   const input = await parseBody(event, createUserSchema)
   // Only this organization's accounts are looked at: the same address may hold an account
   // elsewhere, and an administrator must not learn that from this answer.

@@ -1,12 +1,11 @@
 import { relations } from 'drizzle-orm'
 import { boolean, doublePrecision, index, integer, jsonb, pgTable, text, timestamp, uniqueIndex, uuid } from 'drizzle-orm/pg-core'
 import type { AssessmentStoredInput } from '../../../shared/utils/exposure-schemas'
-import { id, timestamps } from './columns'
+import { EXPOSURE_ASSESSMENT_STATUSES } from '../../../shared/utils/enums'
+import { id, oneOf, timestamps } from './columns'
 import { organizations, sites } from './organizations'
 import { people } from './people'
 import { users } from './users'
-
-export const EXPOSURE_ASSESSMENT_STATUSES = ['draft', 'signed-off', 'superseded'] as const
 
 /**
  * A saved protection-calculator result for a job or work area. A chain of revisions shares
@@ -20,7 +19,7 @@ export const exposureAssessments = pgTable('exposure_assessments', {
   recordId: uuid().notNull(),
   revision: integer().notNull().default(1),
   revisionReason: text(),
-  status: text().$type<typeof EXPOSURE_ASSESSMENT_STATUSES[number]>().notNull().default('draft'),
+  status: text({ enum: EXPOSURE_ASSESSMENT_STATUSES }).notNull().default('draft'),
   version: integer().notNull().default(1),
   title: text().notNull(),
   siteId: uuid().references(() => sites.id, { onDelete: 'set null' }),
@@ -35,6 +34,7 @@ export const exposureAssessments = pgTable('exposure_assessments', {
   signedOffAt: timestamp({ withTimezone: true }),
   ...timestamps
 }, table => [
+  oneOf('exposure_assessments_status_check', table.status, EXPOSURE_ASSESSMENT_STATUSES),
   index('exposure_assessments_organization_idx').on(table.organizationId),
   index('exposure_assessments_record_idx').on(table.recordId),
   uniqueIndex('exposure_assessments_record_revision_unique').on(table.recordId, table.revision)

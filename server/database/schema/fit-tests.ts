@@ -2,15 +2,14 @@ import { relations } from 'drizzle-orm'
 import { boolean, date, doublePrecision, index, integer, jsonb, pgTable, text, timestamp, uniqueIndex, uuid } from 'drizzle-orm/pg-core'
 import type { FitTestEntry, PreTestChecks } from '../../../shared/utils/fit-test-schemas'
 import type { Protocol } from '../../../shared/utils/compute'
-import { id, timestamps } from './columns'
+import { FIT_TEST_KINDS, FIT_TEST_STATUSES } from '../../../shared/utils/enums'
+import { id, oneOf, timestamps } from './columns'
 import { counters } from './equipment'
 import { maskUnits } from './masks'
 import { organizations, sites } from './organizations'
 import { people } from './people'
 import { respiratorModels } from './respirators'
 import { users } from './users'
-
-export const FIT_TEST_STATUSES = ['draft', 'finished', 'superseded', 'withdrawn', 'discarded'] as const
 
 /** What the start of a test found about medical clearance, kept on the record and shown with the result. */
 export interface ClearanceAtStart {
@@ -33,7 +32,7 @@ export const fitTests = pgTable('fit_tests', {
   recordId: uuid().notNull(),
   revision: integer().notNull().default(1),
   revisionReason: text(),
-  status: text().$type<typeof FIT_TEST_STATUSES[number]>().notNull().default('draft'),
+  status: text({ enum: FIT_TEST_STATUSES }).notNull().default('draft'),
   /** Optimistic lock for drafts: every save must send the version it read. */
   version: integer().notNull().default(1),
   idempotencyKey: text(),
@@ -51,7 +50,7 @@ export const fitTests = pgTable('fit_tests', {
   /** The serial-numbered unit the wearer used, when the model's units are tracked. */
   maskUnitId: uuid().references(() => maskUnits.id, { onDelete: 'restrict' }),
 
-  kind: text().$type<'quantitative' | 'qualitative'>().notNull().default('quantitative'),
+  kind: text({ enum: FIT_TEST_KINDS }).notNull().default('quantitative'),
   protocolKey: text().notNull(),
   protocol: jsonb().$type<Protocol>(),
   /** Counter flow at the time of the test, cm³/min. */
@@ -79,6 +78,8 @@ export const fitTests = pgTable('fit_tests', {
   clearanceAtStart: jsonb().$type<ClearanceAtStart>(),
   ...timestamps
 }, table => [
+  oneOf('fit_tests_status_check', table.status, FIT_TEST_STATUSES),
+  oneOf('fit_tests_kind_check', table.kind, FIT_TEST_KINDS),
   index('fit_tests_organization_performed_idx').on(table.organizationId, table.performedAt),
   index('fit_tests_person_idx').on(table.personId),
   index('fit_tests_record_idx').on(table.recordId),

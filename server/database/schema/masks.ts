@@ -1,6 +1,6 @@
 import { boolean, doublePrecision, index, integer, jsonb, pgTable, text, timestamp, uniqueIndex, uuid } from 'drizzle-orm/pg-core'
-import type { MaskUnitState } from '../../../shared/utils/mask-schemas'
-import { id, timestamps } from './columns'
+import { MASK_UNIT_STATES } from '../../../shared/utils/mask-schemas'
+import { id, oneOf, timestamps } from './columns'
 import { benchRigs, counters } from './equipment'
 import { organizations, sites } from './organizations'
 import { respiratorModels } from './respirators'
@@ -29,9 +29,10 @@ export const maskUnits = pgTable('mask_units', {
   maskTypeId: uuid().notNull().references(() => maskTypes.id, { onDelete: 'restrict' }),
   size: text().notNull(),
   siteId: uuid().references(() => sites.id, { onDelete: 'set null' }),
-  state: text().$type<MaskUnitState>().notNull().default('in-service'),
+  state: text({ enum: MASK_UNIT_STATES }).notNull().default('in-service'),
   ...timestamps
 }, table => [
+  oneOf('mask_units_state_check', table.state, MASK_UNIT_STATES),
   index('mask_units_organization_idx').on(table.organizationId),
   uniqueIndex('mask_units_serial_unique').on(table.organizationId, table.serialNumber)
 ])
@@ -41,8 +42,8 @@ export const maskUnitEvents = pgTable('mask_unit_events', {
   id: id(),
   organizationId: uuid().notNull().references(() => organizations.id, { onDelete: 'cascade' }),
   maskUnitId: uuid().notNull().references(() => maskUnits.id, { onDelete: 'cascade' }),
-  fromState: text().$type<MaskUnitState>(),
-  toState: text().$type<MaskUnitState>().notNull(),
+  fromState: text({ enum: MASK_UNIT_STATES }),
+  toState: text({ enum: MASK_UNIT_STATES }).notNull(),
   reason: text().notNull(),
   headformTestId: uuid(),
   /** A return to service that a program admin allowed without a passing headform test since the hold. */
@@ -50,6 +51,8 @@ export const maskUnitEvents = pgTable('mask_unit_events', {
   actorUserId: uuid().references(() => users.id, { onDelete: 'set null' }),
   at: timestamp({ withTimezone: true }).notNull().defaultNow()
 }, table => [
+  oneOf('mask_unit_events_from_state_check', table.fromState, MASK_UNIT_STATES),
+  oneOf('mask_unit_events_to_state_check', table.toState, MASK_UNIT_STATES),
   index('mask_unit_events_unit_idx').on(table.maskUnitId, table.at)
 ])
 

@@ -1,6 +1,7 @@
 import { relations, sql } from 'drizzle-orm'
 import { date, doublePrecision, index, jsonb, pgTable, text, timestamp, uniqueIndex, uuid } from 'drizzle-orm/pg-core'
-import { id, timestamps } from './columns'
+import { IMPORTED_RESULTS, REMINDER_KINDS, REMINDER_TRIGGERS } from '../../../shared/utils/enums'
+import { id, oneOf, timestamps } from './columns'
 import { organizations } from './organizations'
 import { people } from './people'
 import { respiratorModels } from './respirators'
@@ -57,7 +58,7 @@ export const fitHistoryEntries = pgTable('fit_history_entries', {
   respiratorModel: text().notNull(),
   respiratorClass: text().notNull(),
   respiratorSize: text().notNull(),
-  passed: text().$type<'pass' | 'fail'>().notNull(),
+  passed: text({ enum: IMPORTED_RESULTS }).notNull(),
   overallFitFactor: doublePrecision(),
   testerName: text(),
   dueOn: date({ mode: 'string' }),
@@ -65,6 +66,7 @@ export const fitHistoryEntries = pgTable('fit_history_entries', {
   importedByUserId: uuid().references(() => users.id, { onDelete: 'set null' }),
   createdAt: timestamp({ withTimezone: true }).notNull().defaultNow()
 }, table => [
+  oneOf('fit_history_entries_passed_check', table.passed, IMPORTED_RESULTS),
   index('fit_history_person_idx').on(table.organizationId, table.personId),
   uniqueIndex('fit_history_import_unique').on(table.organizationId, table.importKey)
 ])
@@ -86,14 +88,16 @@ export const reminderLog = pgTable('reminder_log', {
   step: text().notNull(),
   recipient: text().notNull(),
   /** 'wearer' for the person's own mail, 'digest' for a tester or admin summary. */
-  kind: text().$type<'wearer' | 'digest'>().notNull(),
-  trigger: text().$type<'scheduled' | 'manual'>().notNull(),
+  kind: text({ enum: REMINDER_KINDS }).notNull(),
+  trigger: text({ enum: REMINDER_TRIGGERS }).notNull(),
   sentByUserId: uuid().references(() => users.id, { onDelete: 'set null' }),
   /** Null until the mail went out; a failed send stays here with its error. */
   sentAt: timestamp({ withTimezone: true }),
   error: text(),
   createdAt: timestamp({ withTimezone: true }).notNull().defaultNow()
 }, table => [
+  oneOf('reminder_log_kind_check', table.kind, REMINDER_KINDS),
+  oneOf('reminder_log_trigger_check', table.trigger, REMINDER_TRIGGERS),
   index('reminder_log_person_idx').on(table.organizationId, table.personId),
   uniqueIndex('reminder_log_step_unique').on(table.organizationId, table.personId, table.dueItem, table.dueOn, table.step, table.recipient)
     .where(sql`trigger = 'scheduled'`),

@@ -1,10 +1,9 @@
 import { relations } from 'drizzle-orm'
 import { boolean, date, index, pgTable, text, uniqueIndex, uuid } from 'drizzle-orm/pg-core'
-import { id, timestamps } from './columns'
+import { MEDICAL_CLEARANCE_STATUSES } from '../../../shared/utils/enums'
+import { id, oneOf, timestamps } from './columns'
 import { organizations, sites } from './organizations'
 import { users } from './users'
-
-export const MEDICAL_CLEARANCE_STATUSES = ['cleared', 'cleared-with-limits', 'pending', 'not-cleared'] as const
 
 /** The people a program fits: respirator wearers. A wearer account may be linked to one. */
 export const people = pgTable('people', {
@@ -17,13 +16,14 @@ export const people = pgTable('people', {
   jobTitle: text(),
   email: text(),
   medicalClearanceOn: date({ mode: 'string' }),
-  medicalClearanceStatus: text().$type<typeof MEDICAL_CLEARANCE_STATUSES[number]>().notNull().default('pending'),
+  medicalClearanceStatus: text({ enum: MEDICAL_CLEARANCE_STATUSES }).notNull().default('pending'),
   notes: text(),
   /** The wearer asked for no reminder e-mail; they still appear in every due list. */
   reminderOptOut: boolean().notNull().default(false),
   active: boolean().notNull().default(true),
   ...timestamps
 }, table => [
+  oneOf('people_medical_clearance_status_check', table.medicalClearanceStatus, MEDICAL_CLEARANCE_STATUSES),
   index('people_organization_idx').on(table.organizationId),
   uniqueIndex('people_employee_number_unique').on(table.organizationId, table.employeeNumber),
   index('people_user_idx').on(table.userId)

@@ -2,7 +2,8 @@ import { relations } from 'drizzle-orm'
 import { boolean, doublePrecision, index, integer, jsonb, pgTable, text, timestamp, uniqueIndex, uuid } from 'drizzle-orm/pg-core'
 import type { FitTestEntry } from '../../../shared/utils/fit-test-schemas'
 import type { Protocol } from '../../../shared/utils/compute'
-import { id, timestamps } from './columns'
+import { PRACTICE_TEST_STATUSES } from '../../../shared/utils/enums'
+import { id, oneOf, timestamps } from './columns'
 import { organizations } from './organizations'
 import { users } from './users'
 
@@ -32,8 +33,6 @@ export const practicePeople = pgTable('practice_people', {
   index('practice_people_set_idx').on(table.practiceSetId)
 ])
 
-export const PRACTICE_TEST_STATUSES = ['draft', 'finished'] as const
-
 /** A trainee's practice fit test: the same raw inputs as a real one, recomputed the same way. */
 export const practiceTests = pgTable('practice_tests', {
   id: id(),
@@ -42,7 +41,7 @@ export const practiceTests = pgTable('practice_tests', {
   practicePersonId: uuid().notNull().references(() => practicePeople.id, { onDelete: 'cascade' }),
   traineeUserId: uuid().notNull().references(() => users.id, { onDelete: 'restrict' }),
   idempotencyKey: text(),
-  status: text().$type<typeof PRACTICE_TEST_STATUSES[number]>().notNull().default('draft'),
+  status: text({ enum: PRACTICE_TEST_STATUSES }).notNull().default('draft'),
   version: integer().notNull().default(1),
   respiratorClass: text().notNull(),
   protocolKey: text().notNull(),
@@ -57,6 +56,7 @@ export const practiceTests = pgTable('practice_tests', {
   finishedAt: timestamp({ withTimezone: true }),
   ...timestamps
 }, table => [
+  oneOf('practice_tests_status_check', table.status, PRACTICE_TEST_STATUSES),
   index('practice_tests_set_idx').on(table.practiceSetId),
   uniqueIndex('practice_tests_idempotency_unique').on(table.organizationId, table.idempotencyKey)
 ])

@@ -1,6 +1,7 @@
 import { boolean, index, integer, jsonb, pgTable, text, timestamp, uuid } from 'drizzle-orm/pg-core'
-import type { CheckStatus, ReadinessStep, StepEntry, TemplateScope } from '../../../shared/utils/readiness-schemas'
-import { id, timestamps } from './columns'
+import { CHECK_STATUSES, TEMPLATE_SCOPES } from '../../../shared/utils/readiness-schemas'
+import type { ReadinessStep, StepEntry } from '../../../shared/utils/readiness-schemas'
+import { id, oneOf, timestamps } from './columns'
 import { benchRigs, counters } from './equipment'
 import { maskTypes } from './masks'
 import { organizations, sites } from './organizations'
@@ -11,13 +12,14 @@ export const readinessTemplates = pgTable('readiness_templates', {
   id: id(),
   organizationId: uuid().notNull().references(() => organizations.id, { onDelete: 'cascade' }),
   name: text().notNull(),
-  scope: text().$type<TemplateScope>().notNull(),
+  scope: text({ enum: TEMPLATE_SCOPES }).notNull(),
   steps: jsonb().$type<ReadinessStep[]>().notNull(),
   /** Seeded with the organization: our own defaults, to be confirmed against the instrument's documentation. */
   isDefault: boolean().notNull().default(false),
   active: boolean().notNull().default(true),
   ...timestamps
 }, table => [
+  oneOf('readiness_templates_scope_check', table.scope, TEMPLATE_SCOPES),
   index('readiness_templates_organization_idx').on(table.organizationId)
 ])
 
@@ -40,13 +42,14 @@ export const readinessChecks = pgTable('readiness_checks', {
   skippedSteps: jsonb().$type<number[]>().notNull().default([]),
   entries: jsonb().$type<StepEntry[]>().notNull().default([]),
   currentStep: integer().notNull().default(0),
-  status: text().$type<CheckStatus>().notNull().default('in-progress'),
+  status: text({ enum: CHECK_STATUSES }).notNull().default('in-progress'),
   abandonReason: text(),
   startedAt: timestamp({ withTimezone: true }).notNull().defaultNow(),
   completedAt: timestamp({ withTimezone: true }),
   performedBy: uuid().references(() => users.id, { onDelete: 'set null' }),
   ...timestamps
 }, table => [
+  oneOf('readiness_checks_status_check', table.status, CHECK_STATUSES),
   index('readiness_checks_organization_completed_idx').on(table.organizationId, table.completedAt),
   index('readiness_checks_counter_idx').on(table.counterId)
 ])

@@ -1,6 +1,7 @@
 import { relations } from 'drizzle-orm'
 import { boolean, doublePrecision, index, pgTable, primaryKey, text, timestamp, uniqueIndex, uuid } from 'drizzle-orm/pg-core'
-import { id, timestamps } from './columns'
+import { REVIEW_QUERY_STATUSES } from '../../../shared/utils/enums'
+import { id, oneOf, timestamps } from './columns'
 import { fitTests } from './fit-tests'
 import { organizations } from './organizations'
 import { users } from './users'
@@ -22,8 +23,6 @@ export const countersigns = pgTable('countersigns', {
   index('countersigns_organization_idx').on(table.organizationId)
 ])
 
-export const REVIEW_QUERY_STATUSES = ['open', 'answered'] as const
-
 /** A reviewer's question sent back to the tester about one revision, and the tester's answer. */
 export const reviewQueries = pgTable('review_queries', {
   id: id(),
@@ -32,12 +31,13 @@ export const reviewQueries = pgTable('review_queries', {
   recordId: uuid().notNull(),
   raisedByUserId: uuid().notNull().references(() => users.id, { onDelete: 'restrict' }),
   question: text().notNull(),
-  status: text().$type<typeof REVIEW_QUERY_STATUSES[number]>().notNull().default('open'),
+  status: text({ enum: REVIEW_QUERY_STATUSES }).notNull().default('open'),
   answer: text(),
   answeredByUserId: uuid().references(() => users.id, { onDelete: 'restrict' }),
   answeredAt: timestamp({ withTimezone: true }),
   ...timestamps
 }, table => [
+  oneOf('review_queries_status_check', table.status, REVIEW_QUERY_STATUSES),
   index('review_queries_fit_test_idx').on(table.fitTestId),
   index('review_queries_organization_status_idx').on(table.organizationId, table.status)
 ])

@@ -1,7 +1,8 @@
 import { relations } from 'drizzle-orm'
 import { bigint, boolean, index, integer, pgEnum, pgTable, text, timestamp, uniqueIndex, uuid, varchar } from 'drizzle-orm/pg-core'
 import { ROLES } from '../../../shared/utils/roles'
-import { id, timestamps } from './columns'
+import { TOKEN_PURPOSES } from '../../../shared/utils/enums'
+import { id, oneOf, timestamps } from './columns'
 import { organizations } from './organizations'
 
 export const userRole = pgEnum('user_role', ROLES)
@@ -37,12 +38,13 @@ export const authTokens = pgTable('auth_tokens', {
   id: id(),
   organizationId: uuid().notNull().references(() => organizations.id, { onDelete: 'cascade' }),
   userId: uuid().notNull().references(() => users.id, { onDelete: 'cascade' }),
-  purpose: text().$type<'invitation' | 'password-reset'>().notNull(),
+  purpose: text({ enum: TOKEN_PURPOSES }).notNull(),
   tokenHash: text().notNull(),
   expiresAt: timestamp({ withTimezone: true }).notNull(),
   usedAt: timestamp({ withTimezone: true }),
   createdAt: timestamp({ withTimezone: true }).notNull().defaultNow()
 }, table => [
+  oneOf('auth_tokens_purpose_check', table.purpose, TOKEN_PURPOSES),
   uniqueIndex('auth_tokens_hash_unique').on(table.tokenHash),
   index('auth_tokens_user_idx').on(table.userId)
 ])

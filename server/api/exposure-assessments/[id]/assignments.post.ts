@@ -3,7 +3,7 @@ import { assessmentIdSchema, assignmentSchema } from '#shared/utils/exposure-sch
 
 /** Puts one person, or everyone with a job title, under this assessment. */
 export default defineEventHandler(async (event) => {
-  const caller = await requireRole(event, 'reviewer')
+  const caller = await requireRole(event, 'review')
   const { id } = parseParams(event, assessmentIdSchema)
   const body = await parseBody(event, assignmentSchema)
   const row = await findAssessment(caller.organizationId, id)

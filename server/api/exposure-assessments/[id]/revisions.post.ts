@@ -3,7 +3,7 @@ import { assessmentIdSchema, reviseAssessmentSchema } from '#shared/utils/exposu
 
 /** Starts a new draft revision of a signed-off assessment, with the reason; the signed-off one stays in force until the new one is signed off. */
 export default defineEventHandler(async (event) => {
-  const caller = await requireRole(event, 'reviewer')
+  const caller = await requireRole(event, 'review')
   const { id } = parseParams(event, assessmentIdSchema)
   const { reason } = await parseBody(event, reviseAssessmentSchema)
   const row = await findAssessment(caller.organizationId, id)

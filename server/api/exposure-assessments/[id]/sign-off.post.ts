@@ -3,7 +3,7 @@ import { assessmentIdSchema } from '#shared/utils/exposure-schemas'
 
 /** Signs off a draft: it is locked from now on, and the record's earlier signed-off revision is superseded. */
 export default defineEventHandler(async (event) => {
-  const caller = await requireRole(event, 'reviewer')
+  const caller = await requireRole(event, 'review')
   const { id } = parseParams(event, assessmentIdSchema)
   const row = await findAssessment(caller.organizationId, id)
   if (row.status !== 'draft') throw assessmentError(409, 'This revision is already signed off.')

@@ -3,7 +3,7 @@ import { idParamSchema } from '#shared/utils/user-schemas'
 
 /** A reviewer countersigns the current finished revision, with an optional comment. */
 export default defineEventHandler(async (event) => {
-  const caller = await requireRole(event, 'reviewer')
+  const caller = await requireRole(event, 'review')
   const { id } = parseParams(event, idParamSchema)
   const { comment } = await parseBody(event, countersignSchema)
   const row = await findFitTest(caller.organizationId, id)

@@ -4,7 +4,7 @@ import { idParamSchema } from '#shared/utils/user-schemas'
 
 /** Discards a draft started by mistake. The row and the audit entry stay; it leaves every list and count. */
 export default defineEventHandler(async (event) => {
-  const caller = await requireRole(event, 'tester')
+  const caller = await requireRole(event, 'record')
   const { id } = parseParams(event, idParamSchema)
   const { reason } = await parseBody(event, discardSchema)
   const row = await findFitTest(caller.organizationId, id)

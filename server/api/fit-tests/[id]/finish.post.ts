@@ -4,7 +4,7 @@ import { idParamSchema } from '#shared/utils/user-schemas'
 import { cardDecision, coverageFlagOf } from '#shared/utils/fit-card-rules'
 
 export default defineEventHandler(async (event) => {
-  const caller = await requireRole(event, 'tester')
+  const caller = await requireRole(event, 'record')
   const { id } = parseParams(event, idParamSchema)
   const { version } = await parseBody(event, finishFitTestSchema)
   const row = await findFitTest(caller.organizationId, id)

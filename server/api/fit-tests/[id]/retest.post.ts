@@ -11,7 +11,7 @@ const retestSchema = z.object({
 
 /** Opens a new draft for the same person, respirator, size, protocol, site and counter, linked to the failed record. */
 export default defineEventHandler(async (event) => {
-  const caller = await requireRole(event, 'tester')
+  const caller = await requireRole(event, 'record')
   const { id } = parseParams(event, idParamSchema)
   const input = await parseBody(event, retestSchema)
   const failed = await findFitTest(caller.organizationId, id)

@@ -6,7 +6,7 @@ import { idParamSchema } from '#shared/utils/user-schemas'
  * the record lock, so two corrections at once give one draft and one 409.
  */
 export default defineEventHandler(async (event) => {
-  const caller = await requireRole(event, 'tester')
+  const caller = await requireRole(event, 'record')
   const { id } = parseParams(event, idParamSchema)
   const { reason } = await parseBody(event, reasonSchema)
   const { recordId } = await findFitTest(caller.organizationId, id)

@@ -8,7 +8,7 @@ import { idParamSchema } from '#shared/utils/user-schemas'
  * The record lock makes a second withdrawal, or one racing a correction, see the state it left.
  */
 export default defineEventHandler(async (event) => {
-  const caller = await requireRole(event, 'tester')
+  const caller = await requireRole(event, 'record')
   const { id } = parseParams(event, idParamSchema)
   const { reason } = await parseBody(event, reasonSchema)
   const { recordId } = await findFitTest(caller.organizationId, id)

@@ -7,7 +7,7 @@ const YEAR_MS = 365.25 * 86400 * 1000
 
 /** One person's overall fit factors over time, per respirator model, with the drift assessment. */
 export default defineEventHandler(async (event) => {
-  const caller = await requireRole(event, 'reviewer', 'tester')
+  const caller = await requireRole(event, 'see-insights')
   const { id } = parseParams(event, idParamSchema)
   const p = schema.people
   const [person] = await useDb().select({ id: p.id, fullName: p.fullName }).from(p).where(and(eq(p.organizationId, caller.organizationId), eq(p.id, id)))

@@ -3,7 +3,7 @@ import { idParamSchema } from '#shared/utils/user-schemas'
 
 /** Records a medical clearance: dates, who cleared, classes covered, restrictions. Never a diagnosis. */
 export default defineEventHandler(async (event) => {
-  const caller = await requireRole(event, 'tester')
+  const caller = await requireRole(event, 'record')
   const { id } = parseParams(event, idParamSchema)
   const input = await parseBody(event, clearanceSchema)
   await findPerson(caller.organizationId, id)

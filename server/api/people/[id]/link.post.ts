@@ -7,7 +7,7 @@ import { idParamSchema } from '#shared/utils/user-schemas'
  * by e-mail (`invite`). One account per roster entry and one roster entry per account.
  */
 export default defineEventHandler(async (event) => {
-  const caller = await requireRole(event, 'admin')
+  const caller = await requireRole(event, 'administer')
   const { id } = parseParams(event, idParamSchema)
   const input = await parseBody(event, linkPersonSchema)
   const person = await findPerson(caller.organizationId, id)

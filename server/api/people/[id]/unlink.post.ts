@@ -3,7 +3,7 @@ import { idParamSchema } from '#shared/utils/user-schemas'
 
 /** Unlinks a roster entry from its wearer account; the account stays and the change is audited. */
 export default defineEventHandler(async (event) => {
-  const caller = await requireRole(event, 'admin')
+  const caller = await requireRole(event, 'administer')
   const { id } = parseParams(event, idParamSchema)
   const person = await findPerson(caller.organizationId, id)
   if (!person.userId) throw httpError(409, 'This person is not linked to an account.')

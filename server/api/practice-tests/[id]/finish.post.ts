@@ -3,7 +3,7 @@ import { finishPracticeTestSchema } from '#shared/utils/practice-schemas'
 import { idParamSchema } from '#shared/utils/user-schemas'
 
 export default defineEventHandler(async (event) => {
-  const caller = await requireRole(event, 'trainer', 'tester')
+  const caller = await requireRole(event, 'use-lab')
   const { id } = parseParams(event, idParamSchema)
   const { version } = await parseBody(event, finishPracticeTestSchema)
   const row = await findPracticeTest(caller.organizationId, id)

@@ -4,7 +4,7 @@ import { idParamSchema } from '#shared/utils/user-schemas'
 
 /** Stops a check without a verdict; it covers nothing and keeps its reason. */
 export default defineEventHandler(async (event) => {
-  const caller = await requireRole(event, 'tester')
+  const caller = await requireRole(event, 'record')
   const { id } = parseParams(event, idParamSchema)
   const { reason } = await parseBody(event, abandonCheckSchema)
   await useDb().transaction(async (tx) => {

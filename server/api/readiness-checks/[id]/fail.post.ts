@@ -3,7 +3,7 @@ import { idParamSchema } from '#shared/utils/user-schemas'
 
 /** Ends the check as failed after a step did not meet its rule (instead of retrying it). */
 export default defineEventHandler(async (event) => {
-  const caller = await requireRole(event, 'tester')
+  const caller = await requireRole(event, 'record')
   const { id } = parseParams(event, idParamSchema)
   await useDb().transaction(async (tx) => {
     const check = await lockOpenCheck(tx, caller.organizationId, id)

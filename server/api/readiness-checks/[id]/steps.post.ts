@@ -4,7 +4,7 @@ import { idParamSchema } from '#shared/utils/user-schemas'
 
 /** Records one attempt at the current step; saved at once so a reload resumes here. */
 export default defineEventHandler(async (event) => {
-  const caller = await requireRole(event, 'tester')
+  const caller = await requireRole(event, 'record')
   const { id } = parseParams(event, idParamSchema)
   const input = await parseBody(event, recordStepSchema)
   await useDb().transaction(async (tx) => {

@@ -2,7 +2,7 @@ import { and, eq } from 'drizzle-orm'
 import { assignmentIdSchema } from '#shared/utils/exposure-schemas'
 
 export default defineEventHandler(async (event) => {
-  const caller = await requireRole(event, 'reviewer')
+  const caller = await requireRole(event, 'review')
   const { id, assignmentId } = parseParams(event, assignmentIdSchema)
   const row = await findAssessment(caller.organizationId, id)
   const x = schema.exposureAssignments

@@ -3,7 +3,7 @@ import { idParamSchema } from '#shared/utils/user-schemas'
 
 /** A reviewer sends a question about the current revision back to the tester. */
 export default defineEventHandler(async (event) => {
-  const caller = await requireRole(event, 'reviewer')
+  const caller = await requireRole(event, 'review')
   const { id } = parseParams(event, idParamSchema)
   const { question } = await parseBody(event, raiseQuerySchema)
   const row = await findFitTest(caller.organizationId, id)

@@ -3,7 +3,7 @@ import { respiratorParamSchema } from '#shared/utils/oversight-schemas'
 
 /** Removes an assignment; the person's fit-test history for that respirator stays. */
 export default defineEventHandler(async (event) => {
-  const caller = await requireRole(event, 'tester')
+  const caller = await requireRole(event, 'record')
   const { id, modelId } = parseParams(event, respiratorParamSchema)
   const a = schema.respiratorAssignments
   const removed = await useDb().transaction(async (tx) => {

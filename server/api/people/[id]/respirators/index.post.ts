@@ -3,7 +3,7 @@ import { idParamSchema } from '#shared/utils/user-schemas'
 
 /** Assigns a catalogue respirator to a person: it then needs its own passing fit test — (f)(2). */
 export default defineEventHandler(async (event) => {
-  const caller = await requireRole(event, 'tester')
+  const caller = await requireRole(event, 'record')
   const { id } = parseParams(event, idParamSchema)
   const { respiratorModelId } = await parseBody(event, assignRespiratorSchema)
   await findPerson(caller.organizationId, id)

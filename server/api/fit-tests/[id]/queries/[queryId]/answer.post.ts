@@ -3,7 +3,7 @@ import { answerQuerySchema, queryParamsSchema } from '#shared/utils/insight-sche
 
 /** The tester answers a reviewer's query; the answer stays on the record. */
 export default defineEventHandler(async (event) => {
-  const caller = await requireRole(event, 'tester')
+  const caller = await requireRole(event, 'record')
   const { id, queryId } = parseParams(event, queryParamsSchema)
   const { answer } = await parseBody(event, answerQuerySchema)
   const row = await findFitTest(caller.organizationId, id)

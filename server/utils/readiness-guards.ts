@@ -1,31 +1,10 @@
-import { and, asc, desc, eq, getTableColumns } from 'drizzle-orm'
-import type { z } from 'zod'
+// Readiness checks: the rules a check follows — which counter, rig and steps it covers, the row
+// lock before a change, one verdict per step. The reads are in readiness-queries.ts.
+import { and, eq } from 'drizzle-orm'
 import { evaluateAcceptanceRule } from '#shared/utils/compute'
-import { DEFAULT_TEMPLATES } from '#shared/utils/readiness-defaults'
-import type { listChecksQuerySchema, RecordStep, ReadinessStep, StartReadinessCheck, StepEntry } from '#shared/utils/readiness-schemas'
+import type { RecordStep, ReadinessStep, StartReadinessCheck, StepEntry } from '#shared/utils/readiness-schemas'
 
 type Tx = Parameters<Parameters<Database['transaction']>[0]>[0]
-
-/** Every organization gets the default templates the first time its templates are read. */
-export async function ensureDefaultTemplates(organizationId: string) {
-  const t = schema.readinessTemplates
-  const [any] = await useDb().select({ id: t.id }).from(t).where(eq(t.organizationId, organizationId)).limit(1)
-  if (any) return
-  await useDb().insert(t).values(DEFAULT_TEMPLATES.map(d => ({ ...d, organizationId, isDefault: true })))
-}
-
-export async function listTemplates(organizationId: string) {
-  await ensureDefaultTemplates(organizationId)
-  const t = schema.readinessTemplates
-  return useDb().select().from(t).where(eq(t.organizationId, organizationId)).orderBy(desc(t.active), asc(t.scope), asc(t.name))
-}
-
-export async function findTemplate(organizationId: string, id: string) {
-  const t = schema.readinessTemplates
-  const [row] = await useDb().select().from(t).where(and(eq(t.organizationId, organizationId), eq(t.id, id)))
-  if (!row) throw httpError(404, 'No such readiness template in your organization.')
-  return row
-}
 
 /** Steps the mask type on the headform lacks the part for. */
 export function skippedStepsFor(steps: ReadinessStep[], maskType: { hasDrinkTube: boolean, hasExhalationValve: boolean } | null) {
@@ -63,45 +42,6 @@ export async function planCheck(organizationId: string, input: StartReadinessChe
     siteId: rig?.siteId ?? counter.siteId,
     skippedSteps: skippedStepsFor(template.steps, maskType)
   }
-}
-
-const checkColumns = {
-  ...getTableColumns(schema.readinessChecks),
-  counterSerial: schema.counters.serialNumber,
-  benchRigSerial: schema.benchRigs.serialNumber,
-  maskTypeName: schema.maskTypes.name,
-  siteName: schema.sites.name,
-  performedByName: schema.users.displayName
-}
-
-function checkQuery() {
-  const c = schema.readinessChecks
-  return useDb().select(checkColumns).from(c)
-    .innerJoin(schema.counters, eq(schema.counters.id, c.counterId))
-    .leftJoin(schema.benchRigs, eq(schema.benchRigs.id, c.benchRigId))
-    .leftJoin(schema.maskTypes, eq(schema.maskTypes.id, c.maskTypeId))
-    .leftJoin(schema.sites, eq(schema.sites.id, c.siteId))
-    .leftJoin(schema.users, eq(schema.users.id, c.performedBy))
-}
-
-export async function listChecks(organizationId: string, query: z.output<typeof listChecksQuerySchema>) {
-  const c = schema.readinessChecks
-  return checkQuery()
-    .where(and(
-      eq(c.organizationId, organizationId),
-      query.counterId ? eq(c.counterId, query.counterId) : undefined,
-      query.benchRigId ? eq(c.benchRigId, query.benchRigId) : undefined,
-      query.status ? eq(c.status, query.status) : undefined
-    ))
-    .orderBy(desc(c.startedAt))
-    .limit(query.limit)
-}
-
-export async function findCheck(organizationId: string, id: string) {
-  const c = schema.readinessChecks
-  const [row] = await checkQuery().where(and(eq(c.organizationId, organizationId), eq(c.id, id)))
-  if (!row) throw httpError(404, 'No such readiness check in your organization.')
-  return row
 }
 
 /** Locks an open check for a change; an ended one is a 409, since a finished record is never edited. */
