@@ -21,7 +21,7 @@ export const NAV_ITEMS: NavItem[] = [
   { to: '/equipment/headform', label: 'Headform test', roles: ['tester'] },
   { to: '/equipment/masks', label: 'Mask units', roles: ['tester', 'reviewer', 'trainer'] },
   { to: '/equipment/counters', label: 'Counters and rigs', roles: ['tester', 'reviewer', 'trainer'] },
-  { to: '/equipment/templates', label: 'Check templates', roles: ['tester', 'reviewer', 'trainer'] },
+  { to: '/equipment/templates', label: 'Readiness templates', roles: ['tester', 'reviewer', 'trainer'] },
   { to: '/lab', label: 'Training lab', roles: ['trainer', 'tester'] },
   { to: '/admin/catalogue', label: 'Catalogue', roles: ['admin'] },
   { to: '/admin/pass-levels', label: 'Pass levels', roles: ['admin'] },

@@ -57,7 +57,8 @@ export function localDay(at: Date | string, timeZone: string): string {
 }
 
 function localTime(at: Date, timeZone: string): string {
-  return new Intl.DateTimeFormat('en-GB', { timeZone, hour: '2-digit', minute: '2-digit' }).format(at)
+  // The time with its zone named ("06:06 GMT"), the same clock every page uses (shared/utils/clock.ts).
+  return new Intl.DateTimeFormat('en-GB', { timeZone, hour: '2-digit', minute: '2-digit', hourCycle: 'h23', timeZoneName: 'short' }).format(at)
 }
 
 const toDate = (v: Date | string) => (v instanceof Date ? v : new Date(v))
@@ -128,7 +129,7 @@ export function decideCoverage(result: CoverageResult, checks: readonly Candidat
   return {
     covered: true,
     reason: 'covered',
-    message: `Readiness check passed at ${when} (site time), earlier the same day.`,
+    message: `Readiness check passed at ${when}, earlier the same day.`,
     checkId: last.id,
     completedAt: last.completedAt.toISOString()
   }
