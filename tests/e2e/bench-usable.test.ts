@@ -27,6 +27,7 @@ async function signedIn(role: string, viewport = PHONE) {
 
 /** The side panel's pages for this role, plus the first record each list links to. */
 async function pagesOf(page: Page): Promise<string[]> {
+  await page.locator('#side-panel nav a').first().waitFor({ state: 'attached' })
   const nav = await page.locator('#side-panel nav a').evaluateAll(links => links.map(a => a.getAttribute('href') ?? ''))
   const pages = new Set(nav)
   for (const list of nav) {
