@@ -2,6 +2,13 @@ import type { z } from 'zod'
 import type { clearanceSchema } from '#shared/utils/oversight-schemas'
 import type { PersonInput } from '#shared/utils/person-schemas'
 
+/** Adds a person to the roster and refreshes it. */
+export async function createPerson(input: PersonInput) {
+  const person = await $fetch<{ id: string }>('/api/people', { method: 'POST', body: input })
+  await refreshNuxtData('people-list')
+  return person
+}
+
 /** Mutations of one person's pages; each refreshes the person's record (and the roster). */
 export function usePersonActions(personId: string, dataKey = `person-${personId}`) {
   const refresh = () => refreshNuxtData([dataKey, 'people-list'])
