@@ -7,6 +7,11 @@ export function useSettingsActions() {
       const saved = await $fetch('/api/settings', { method: 'PATCH', body: change })
       await Promise.all([refreshNuxtData('settings'), refreshNuxtData('number-format')])
       return saved
+    },
+    async updateOversight(change: { reminders: unknown, clearanceAtStart: string }) {
+      const saved = await $fetch('/api/settings/oversight', { method: 'PATCH', body: change as Record<string, unknown> })
+      await refreshNuxtData('settings-oversight')
+      return saved
     }
   }
 }

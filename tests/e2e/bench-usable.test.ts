@@ -18,9 +18,9 @@ afterAll(async () => {
   await browser?.close()
 })
 
-async function signedIn(role: string, viewport = PHONE) {
+async function signedIn(role: string, viewport = PHONE, organization = 'tamsin-valley') {
   const page = await browser.newPage({ viewport })
-  await signInAs(page, `${role}@tamsin-valley.example`, DEMO_PASSWORD)
+  await signInAs(page, `${role}@${organization}.example`, DEMO_PASSWORD)
   await page.waitForURL(`${baseUrl}/`)
   return page
 }
@@ -46,15 +46,17 @@ async function overflowOf(page: Page) {
 }
 
 describe('every page fits a 360 px phone', () => {
-  it.each(ROLES)('for the %s, no page is wider than the screen', async (role) => {
-    const page = await signedIn(role)
+  // Every role of the US demo program, and the UK program's tester (its mask units have records).
+  const who = [...ROLES.map(role => [role, 'tamsin-valley']), ['tester', 'harrow-point']] as const
+  it.each(who)('for the %s of %s, no page is wider than the screen', async (role, organization) => {
+    const page = await signedIn(role, PHONE, organization)
     const wide: string[] = []
     for (const path of await pagesOf(page)) {
       await page.goto(`${baseUrl}${path}`)
       await page.waitForLoadState('networkidle')
       const { scrollWidth, viewport } = await overflowOf(page)
       if (scrollWidth > viewport) wide.push(`${path}: ${scrollWidth} px`)
-      await screenshot(page, `phone-${role}${path.replace(/\//g, '-').replace(/-[0-9a-f-]{36}/, '-record')}`)
+      await screenshot(page, `phone-${organization}-${role}${path.replace(/\//g, '-').replace(/-[0-9a-f-]{36}/, '-record')}`)
     }
     expect(wide).toEqual([])
     await page.close()
@@ -134,6 +136,19 @@ describe('honest states', () => {
     await page.waitForURL(`${baseUrl}/people`)
     await expect.poll(() => page.evaluate(() => document.activeElement?.tagName)).toBe('H1')
     await expect(page.evaluate(() => document.activeElement?.textContent)).resolves.toBe('People')
+    await page.close()
+  })
+})
+
+describe('sources on the bench', () => {
+  it('shows the source of each default readiness tolerance beside it', async () => {
+    const page = await signedIn('tester')
+    await page.goto(`${baseUrl}/equipment/templates`)
+    const zero = page.locator('li').filter({ hasText: 'Filtered-air zero' }).first()
+    // zero ≤ 1 /cm³ and room air ≥ 1,000 /cm³: common practice (no published source).
+    await expect(zero.getByTestId('tolerance-source').textContent()).resolves.toMatch(/common practice \(no published source\).*instrument maker's instructions govern/)
+    const room = page.locator('li').filter({ hasText: 'Room air reading' }).first()
+    await expect(room.getByTestId('tolerance-source').textContent()).resolves.toMatch(/common practice \(no published source\)/)
     await page.close()
   })
 })
