@@ -1,4 +1,11 @@
+import { createRequire } from 'node:module'
+import { dirname, join } from 'node:path'
 import { fileURLToPath } from 'node:url'
+
+// Nuxt adds its own error handler (the one that renders app/error.vue for a page URL) only when no
+// other is configured; ours runs first for the API and the database, then Nuxt's renders the page.
+const requireFromNuxt = createRequire(createRequire(import.meta.url).resolve('nuxt/package.json'))
+const nuxtPageErrorHandler = join(dirname(requireFromNuxt.resolve('@nuxt/nitro-server')), 'runtime/handlers/error')
 
 // Sealwright: Nuxt 4 app with `app/` as srcDir, server routes under `server/`, pure computation in `shared/`.
 export default defineNuxtConfig({
@@ -44,7 +51,7 @@ export default defineNuxtConfig({
   },
   compatibilityDate: '2026-11-01',
   nitro: {
-    errorHandler: '~~/server/error-handler.ts',
+    errorHandler: ['~~/server/error-handler.ts', nuxtPageErrorHandler],
     // Lets the database layer know which request sent a statement (see server/utils/db-outcome.ts).
     experimental: { asyncContext: true },
     // The fit card PDF embeds the same IBM Plex Sans the pages use, shipped with the server.

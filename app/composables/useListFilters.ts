@@ -14,5 +14,13 @@ export function useListFilters<K extends 'people' | 'fitTests'>(list: K, pageSiz
     filters.value.page = 1
   })
   const query = computed(() => compactQuery({ ...filters.value, pageSize }))
-  return { filters, search, query }
+  /** Back to the unfiltered list, keeping the sort a person chose. */
+  function clear() {
+    search.value = ''
+    for (const key of Object.keys(filters.value) as (keyof typeof filters.value)[]) {
+      if (key === 'sort' || key === 'dir') continue
+      (filters.value as Record<string, unknown>)[key] = key === 'page' ? 1 : ''
+    }
+  }
+  return { filters, search, query, clear }
 }

@@ -1,14 +1,26 @@
 import { findBuiltInProtocol, findRespiratorClass, formatFitFactor } from '#shared/utils/compute'
+import { formatCalendarDay, formatEventDay, formatEventTime } from '#shared/utils/clock'
 
-export function formatDate(iso: string | Date | null | undefined, timeZone?: string) {
-  if (!iso) return '—'
-  const value = typeof iso === 'string' && /^\d{4}-\d{2}-\d{2}$/.test(iso) ? new Date(`${iso}T12:00:00Z`) : new Date(iso)
-  return new Intl.DateTimeFormat('en-GB', { day: 'numeric', month: 'short', year: 'numeric', timeZone: typeof iso === 'string' && /^\d{4}-\d{2}-\d{2}$/.test(iso) ? 'UTC' : timeZone }).format(value)
+export const PROGRAM_TIME_ZONE_KEY = 'program-time-zone'
+
+/**
+ * The zone of an event that carries no site of its own: the program's first site, set by the
+ * default layout (useProgramClock). Outside a Nuxt app (tests) it is UTC, named as such.
+ */
+function programZone(): string | undefined {
+  if (!tryUseNuxtApp()) return undefined
+  return useState<string | null>(PROGRAM_TIME_ZONE_KEY, () => null).value ?? undefined
 }
 
-export function formatDateTime(iso: string | Date | null | undefined, timeZone?: string) {
-  if (!iso) return '—'
-  return new Intl.DateTimeFormat('en-GB', { day: 'numeric', month: 'short', year: 'numeric', hour: '2-digit', minute: '2-digit', timeZone, timeZoneName: timeZone ? 'short' : undefined }).format(new Date(iso))
+/** A day: "2 Dec 2026". A stored calendar day is that day; an instant is its day in the site's zone. */
+export function formatDate(value: string | Date | null | undefined, timeZone?: string | null) {
+  if (typeof value === 'string' && /^\d{4}-\d{2}-\d{2}$/.test(value)) return formatCalendarDay(value)
+  return formatEventDay(value, timeZone || programZone())
+}
+
+/** An instant: "2 Dec 2026, 06:06 GMT", in the site's zone with the zone named. */
+export function formatDateTime(value: string | Date | null | undefined, timeZone?: string | null) {
+  return formatEventTime(value, timeZone || programZone())
 }
 
 export function protocolName(key: string) {

@@ -22,7 +22,7 @@ export const NAV_ITEMS: NavItem[] = [
   { to: '/equipment/headform', label: 'Headform test', may: 'record' },
   { to: '/equipment/masks', label: 'Mask units', may: 'read-program' },
   { to: '/equipment/counters', label: 'Counters and rigs', may: 'read-program' },
-  { to: '/equipment/templates', label: 'Check templates', may: 'read-program' },
+  { to: '/equipment/templates', label: 'Readiness templates', may: 'read-program' },
   { to: '/lab', label: 'Training lab', may: 'use-lab' },
   { to: '/admin/catalogue', label: 'Catalogue', may: 'administer' },
   { to: '/admin/pass-levels', label: 'Pass levels', may: 'administer' },

@@ -4,6 +4,7 @@ import { findBuiltInProtocol, formatFitFactor } from '#shared/utils/compute'
 import { COVERAGE_FLAG_TEXT } from '#shared/utils/fit-card-rules'
 import type { CoverageFlag } from '#shared/utils/fit-card-rules'
 import type { FitTestView } from './fit-test-view'
+import { formatEventDay } from '#shared/utils/clock'
 
 const fonts = new Map<string, Buffer>()
 
@@ -21,8 +22,9 @@ export function verificationUrl(token: string) {
   return appUrl(`/verify/${token}`)
 }
 
+// One date format on every page and card (shared/utils/clock.ts): "2 Dec 2026".
 function dateText(iso: string | Date, timeZone: string) {
-  return new Intl.DateTimeFormat('en-GB', { timeZone, day: 'numeric', month: 'long', year: 'numeric' }).format(new Date(iso))
+  return formatEventDay(iso, timeZone)
 }
 
 /** What a fit card says, already worded: the layout below only places it. */
@@ -45,7 +47,7 @@ export function fitCardContent(view: FitTestView, link: string): FitCardContent 
     ['Test', view.kind === 'qualitative' ? 'Qualitative fit test' : `Quantitative — ${findBuiltInProtocol(view.protocolKey)?.name ?? view.protocolKey}`],
     ['Overall fit factor', view.kind === 'qualitative' ? 'Qualitative pass' : `${formatFitFactor({ value: view.overallFitFactor!, isLowerBound: Boolean(view.overallIsLowerBound) })} (pass level ${view.passLevel})`],
     ['Tested on', dateText(view.performedAt, tz)],
-    ['Next test due', view.dueOn ? dateText(`${view.dueOn}T12:00:00Z`, 'UTC') : ''],
+    ['Next due', view.dueOn ? dateText(`${view.dueOn}T12:00:00Z`, 'UTC') : ''],
     ['Tester', view.testerName]
   ]
   if (view.maskUnit) fields.splice(3, 0, ['Mask unit', `Serial ${view.maskUnit.serialNumber}`])

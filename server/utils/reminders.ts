@@ -1,4 +1,5 @@
 import { and, eq, inArray, sql } from 'drizzle-orm'
+import { formatCalendarDay } from '#shared/utils/clock'
 import { reminderSettingsOf, reminderStep } from '#shared/utils/oversight'
 import { DUE_REASON_LABELS } from '#shared/utils/oversight-schemas'
 import type { DueListQuery } from '#shared/utils/oversight-schemas'
@@ -47,7 +48,7 @@ export async function dueList(organizationId: string, today: string, q: DueListQ
 }
 
 function describeItem(item: DueItem) {
-  const when = item.dueOn ? ` (${item.dueOn})` : ''
+  const when = item.dueOn ? ` (${formatCalendarDay(item.dueOn)})` : ''
   return `- ${item.label}: ${DUE_REASON_LABELS[item.reason]}${when}`
 }
 

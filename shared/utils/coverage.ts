@@ -2,6 +2,8 @@
 // same bench rig for a headform test), passed, completed earlier the same calendar day in the
 // site's time zone (DOMAIN.md, "Records and timing"). Pure: no Vue, no Nitro.
 
+import { formatCalendarDay } from './clock'
+
 export const COVERAGE_REASONS = [
   'covered',
   'no-check-that-day',
@@ -57,7 +59,8 @@ export function localDay(at: Date | string, timeZone: string): string {
 }
 
 function localTime(at: Date, timeZone: string): string {
-  return new Intl.DateTimeFormat('en-GB', { timeZone, hour: '2-digit', minute: '2-digit' }).format(at)
+  // The time with its zone named ("06:06 GMT"), the same clock every page uses (shared/utils/clock.ts).
+  return new Intl.DateTimeFormat('en-GB', { timeZone, hour: '2-digit', minute: '2-digit', hourCycle: 'h23', timeZoneName: 'short' }).format(at)
 }
 
 const toDate = (v: Date | string) => (v instanceof Date ? v : new Date(v))
@@ -71,7 +74,7 @@ export function decideCoverage(result: CoverageResult, checks: readonly Candidat
     return {
       covered: false,
       reason: 'calibration-past-due',
-      message: `The counter's calibration was due on ${counter.calibrationDueOn}; results made after that date are not covered until it is calibrated again.`
+      message: `The counter's calibration was due on ${formatCalendarDay(counter.calibrationDueOn)}; results made after that date are not covered until it is calibrated again.`
     }
   }
 
@@ -97,8 +100,8 @@ export function decideCoverage(result: CoverageResult, checks: readonly Candidat
       covered: false,
       reason: 'no-check-that-day',
       message: rig === null
-        ? `No readiness check of this counter was completed on ${day} (site time).`
-        : `No readiness check of this bench rig was completed on ${day} (site time).`
+        ? `No readiness check of this counter was completed on ${formatCalendarDay(day)}, the site's calendar day.`
+        : `No readiness check of this bench rig was completed on ${formatCalendarDay(day)}, the site's calendar day.`
     }
   }
 
@@ -128,7 +131,7 @@ export function decideCoverage(result: CoverageResult, checks: readonly Candidat
   return {
     covered: true,
     reason: 'covered',
-    message: `Readiness check passed at ${when} (site time), earlier the same day.`,
+    message: `Readiness check passed at ${when}, earlier the same day.`,
     checkId: last.id,
     completedAt: last.completedAt.toISOString()
   }

@@ -74,7 +74,7 @@ export const VERIFICATION_STATE_TEXT: Record<VerificationState, { word: string, 
 
 /** The coverage line for a card or the public page: no times, serials or names. */
 export const COVERAGE_FLAG_TEXT: Record<CoverageFlag, string> = {
-  'covered': 'Covered: the counter passed its readiness check earlier the same day.',
+  'covered': 'Covered by a readiness check: the counter passed it earlier the same day.',
   'not-covered': 'Not covered: no passing readiness check of the counter was recorded earlier that day.',
   'not-applicable': 'Readiness check not applicable (qualitative test, no counter).'
 }

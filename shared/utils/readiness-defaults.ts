@@ -34,3 +34,20 @@ export const DEFAULT_BENCH_RIG_TEMPLATE: ReadinessTemplate = {
 }
 
 export const DEFAULT_TEMPLATES: readonly ReadinessTemplate[] = [DEFAULT_COUNTER_TEMPLATE, DEFAULT_BENCH_RIG_TEMPLATE]
+
+/** Where a default tolerance comes from, shown beside it wherever a template is read. */
+export const DEFAULT_TOLERANCE_SOURCE = 'common practice (no published source)'
+export const TOLERANCE_AUTHORITY = 'Your program\'s own procedure or the instrument maker\'s instructions govern.'
+
+/**
+ * The source label of a step's tolerance: a measured step that still holds a Sealwright default
+ * (same name, same rule) is "common practice (no published source)"; any other was set by the
+ * program. A pass-or-fail step has no tolerance and no label.
+ */
+export function toleranceSource(step: { name: string, rule: { kind: string, min?: number | null, max?: number | null, unit?: string } }): string | null {
+  if (step.rule.kind === 'pass-fail') return null
+  const field = (rule: object, key: 'min' | 'max' | 'unit') => (rule as Record<string, unknown>)[key] ?? null
+  const sameRule = (rule: object) => (['min', 'max', 'unit'] as const).every(key => field(rule, key) === field(step.rule, key))
+  const same = DEFAULT_TEMPLATES.some(t => t.steps.some(d => d.name === step.name && d.rule.kind === step.rule.kind && sameRule(d.rule)))
+  return same ? `Source: ${DEFAULT_TOLERANCE_SOURCE}. ${TOLERANCE_AUTHORITY}` : `Source: set by your program. ${TOLERANCE_AUTHORITY}`
+}

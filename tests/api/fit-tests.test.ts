@@ -188,7 +188,7 @@ describe('the fit card', () => {
     expect(pdf.headers.get('content-type')).toBe('application/pdf')
     const text = execFileSync('pdftotext', ['-', '-'], { input: Buffer.from(await pdf.arrayBuffer()) }).toString()
     expect(text).toContain(done.overallFitFactor.toFixed(1).slice(0, 4))
-    expect(text).toMatch(/20 November 2027/)
+    expect(text).toMatch(/20 Nov 2027/)
     expect(text).toContain('Rowan Testwell')
 
     const verify = await new Client().get(`/api/verify/${done.cardToken}`)

@@ -14,7 +14,7 @@ const pages = (pdf: Buffer) => (pdf.toString('latin1').match(/\/Type \/Page\b/g)
 function card(over: Partial<FitCardContent> = {}): FitCardContent {
   return {
     organization: 'Fixture Waterworks',
-    fields: [['Wearer', 'Rowan Testwell'], ['Respirator', 'Fixture Safety FX-2 half mask'], ['Style and size', 'Elastomeric half mask, size M'], ['Test', 'Quantitative — Standard protocol'], ['Overall fit factor', '100.0 (pass level 100)'], ['Tested on', '20 November 2026'], ['Next test due', '20 November 2027'], ['Tester', 'Fixture Tester']],
+    fields: [['Wearer', 'Rowan Testwell'], ['Respirator', 'Fixture Safety FX-2 half mask'], ['Style and size', 'Elastomeric half mask, size M'], ['Test', 'Quantitative — Standard protocol'], ['Overall fit factor', '100.0 (pass level 100)'], ['Tested on', '20 Nov 2026'], ['Next due', '20 Nov 2027'], ['Tester', 'Fixture Tester']],
     coverage: 'covered',
     citation: 'Fit tested under 29 CFR 1910.134(f) and Appendix A; pass level: 29 CFR 1910.134(f)(7). Record kept under 29 CFR 1910.134(m)(2).',
     cautions: FIT_TEST_CAUTIONS,
@@ -36,7 +36,7 @@ describe('the fit card layout', () => {
     const long = 'Very long text '.repeat(30)
     const pdf = await renderFitCardPdf(card({
       organization: long,
-      fields: [['Wearer', long], ['Respirator', long], ['Style and size', long], ['Mask unit', long], ['Test', long], ['Overall fit factor', long], ['Tested on', long], ['Next test due', long], ['Tester', long]],
+      fields: [['Wearer', long], ['Respirator', long], ['Style and size', long], ['Mask unit', long], ['Test', long], ['Overall fit factor', long], ['Tested on', long], ['Next due', long], ['Tester', long]],
       coverage: 'not-covered',
       citation: long,
       cautions: [long, long, long, long],

@@ -1,0 +1,20 @@
+/**
+ * After a move to another page, keyboard and screen-reader users land on the new page's heading
+ * (the route announcer reads the title out). The first load keeps the browser's own start, and a
+ * change of query on the same page (a filter, the pager) leaves focus where the person is typing.
+ */
+export default defineNuxtPlugin((nuxtApp) => {
+  const router = useRouter()
+  let shownPath = router.currentRoute.value.path
+  nuxtApp.hook('page:finish', () => {
+    const path = router.currentRoute.value.path
+    if (path === shownPath) return
+    shownPath = path
+    requestAnimationFrame(() => {
+      const heading = document.querySelector<HTMLElement>('#main h1')
+      if (!heading) return
+      if (!heading.hasAttribute('tabindex')) heading.setAttribute('tabindex', '-1')
+      heading.focus()
+    })
+  })
+})
