@@ -16,6 +16,10 @@ export function useFitTestActions(id: string, key: string) {
     async save(changes: DraftSave, keepalive = false) {
       return $fetch<{ version: number }>(`/api/fit-tests/${id}`, { method: 'PATCH', body: changes, keepalive })
     },
+    /** The version the server holds now (a reload may have read the draft before the last save landed). */
+    async currentVersion() {
+      return (await $fetch<{ version: number }>(`/api/fit-tests/${id}`)).version
+    },
     async finish(version: number) {
       const done = await $fetch(`/api/fit-tests/${id}/finish`, { method: 'POST', body: { version } })
       await refresh()

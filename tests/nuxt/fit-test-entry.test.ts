@@ -6,6 +6,7 @@ import { describe, expect, it, vi } from 'vitest'
 import { mountSuspended } from '@nuxt/test-utils/runtime'
 import { STANDARD_PROTOCOL } from '#shared/utils/compute'
 import { evaluateFitTest } from '#shared/utils/fit-test-evaluate'
+import { fitTestEntrySchema } from '#shared/utils/fit-test-schemas'
 import { useFitTestDraftStore } from '~/stores/fit-test-draft'
 import FitTestGrid from '~/components/fit-test/FitTestGrid.vue'
 import FitTestSeriesEntry from '~/components/fit-test/FitTestSeriesEntry.vue'
@@ -13,10 +14,10 @@ import FitTestVerdict from '~/components/fit-test/FitTestVerdict.vue'
 import { allPreTestMet, standardEntry, syntheticSeries } from '../support/fit-test-inputs'
 
 function draftOf(id: string, mode: 'grid' | 'series' = 'grid') {
-  const entry = { ...standardEntry([1000, 1000, 1000, 1000, 1000, 1000, 10]), mode }
+  const entry = fitTestEntrySchema.parse({ ...standardEntry([1000, 1000, 1000, 1000, 1000, 1000, 10]), mode })
   return useFitTestDraftStore().load(id, { version: 1, entry, preTest: allPreTestMet, respiratorSize: 'M' }, null)
 }
-const resultOf = (entry: ReturnType<typeof standardEntry>) => evaluateFitTest({ protocol: STANDARD_PROTOCOL, entry, passLevel: 100 }).result
+const resultOf = (entry: ReturnType<typeof standardEntry>) => evaluateFitTest({ protocol: STANDARD_PROTOCOL, entry: fitTestEntrySchema.parse(entry), passLevel: 100 }).result
 
 describe('FitTestGrid', () => {
   it('shows each exercise\'s fit factor beside its readings and sends every keystroke to the draft', async () => {
