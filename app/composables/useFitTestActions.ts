@@ -1,4 +1,4 @@
-import type { FitTestEntry, PreTestChecks } from '#shared/utils/fit-test-schemas'
+import type { CreateFitTest, FitTestEntry, PreTestChecks } from '#shared/utils/fit-test-schemas'
 
 export interface DraftSave {
   version: number
@@ -12,8 +12,13 @@ export interface DraftSave {
 export function useFitTestActions(id: string, key: string) {
   const refresh = () => refreshNuxtData([key, 'fit-test-list'])
   return {
-    async save(changes: DraftSave) {
-      return $fetch<{ version: number }>(`/api/fit-tests/${id}`, { method: 'PATCH', body: changes })
+    /** `keepalive` lets the request finish after the page is gone (a reload or a closed tab). */
+    async save(changes: DraftSave, keepalive = false) {
+      return $fetch<{ version: number }>(`/api/fit-tests/${id}`, { method: 'PATCH', body: changes, keepalive })
+    },
+    /** The version the server holds now (a reload may have read the draft before the last save landed). */
+    async currentVersion() {
+      return (await $fetch<{ version: number }>(`/api/fit-tests/${id}`)).version
     },
     async finish(version: number) {
       const done = await $fetch(`/api/fit-tests/${id}/finish`, { method: 'POST', body: { version } })
@@ -27,6 +32,17 @@ export function useFitTestActions(id: string, key: string) {
       const done = await $fetch(`/api/fit-tests/${id}/withdraw`, { method: 'POST', body: { reason } })
       await refresh()
       return done
+    }
+  }
+}
+
+/** Starting a fit test; the list refreshes when it is next shown. */
+export function useNewFitTestActions() {
+  return {
+    async create(input: CreateFitTest) {
+      const created = await $fetch<{ id: string }>('/api/fit-tests', { method: 'POST', body: input })
+      await refreshNuxtData('fit-test-list')
+      return created
     }
   }
 }

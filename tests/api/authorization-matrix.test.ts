@@ -74,6 +74,7 @@ const WHO_MAY: Record<string, string> = {
   'POST /api/fit-tests/:id/retest': 'tester',
   'GET /api/fit-tests/:id/review': 'tester reviewer trainer wearer:own',
   'POST /api/fit-tests/:id/revisions': 'tester',
+  'GET /api/fit-tests/:id/series': 'tester reviewer trainer wearer:own',
   'POST /api/fit-tests/:id/withdraw': 'tester',
   'GET /api/headform-tests': 'tester reviewer trainer',
   'POST /api/headform-tests': 'tester',
