@@ -2,7 +2,7 @@ import { idParamSchema } from '#shared/utils/user-schemas'
 
 /** The count series exactly as it was pasted or uploaded: the raw readings behind the result. */
 export default defineEventHandler(async (event) => {
-  const caller = await requireRole(event, 'tester', 'reviewer', 'trainer', 'wearer')
+  const caller = await requireRole(event, 'read-fit-tests')
   const { id } = parseParams(event, idParamSchema)
   const row = await findFitTest(caller.organizationId, id)
   await assertMayRead(caller, row)
