@@ -76,12 +76,15 @@ describe('entry by keyboard and screen reader', () => {
     await context.close()
   })
 
-  it('opens "Abandon this check…" on its field, closes on Escape and gives the focus back', async () => {
-    const { context, page } = await testerContext(1280)
+  it('opens "Abandon this check…" on its field, closes on Escape and gives the focus back (on a 360 px phone)', async () => {
+    const { context, page } = await testerContext(360)
     await page.goto(`${baseUrl}/equipment/checks`)
     await page.getByLabel('Equipment').selectOption({ index: 1 })
     await page.getByRole('button', { name: 'Start check' }).click()
     await page.waitForURL(/\/equipment\/checks\/[0-9a-f-]{36}$/)
+    await page.getByTestId('runner-step').waitFor()
+    await expect(page.evaluate(() => document.documentElement.scrollWidth - document.documentElement.clientWidth)).resolves.toBeLessThanOrEqual(0)
+    await screenshot(page, 'readiness-runner-360')
     await page.getByRole('button', { name: 'Abandon this check…' }).click()
     await expect.poll(() => page.evaluate(() => document.activeElement?.id)).toBe('abandon-reason')
     await page.keyboard.press('Escape')
@@ -102,7 +105,12 @@ describe('nothing typed is lost', () => {
     await cell.fill('12.5')
     // Well inside the 0.7 s autosave pause: the page hides, and the keepalive save still arrives.
     await page.reload()
-    await expect(page.getByLabel('In-mask for Talking').inputValue()).resolves.toBe('12.5')
+    await expect.poll(() => page.getByLabel('In-mask for Talking').inputValue()).toBe('12.5')
+    // And the server holds it: a second reload (the tab's copy is gone once saved) shows it too.
+    await page.getByTestId('save-state').filter({ hasText: 'Draft saved' }).waitFor()
+    await expect.poll(() => page.evaluate(() => Object.keys(sessionStorage).filter(k => k.startsWith('sealwright-draft-')).length)).toBe(0)
+    await page.reload()
+    await expect.poll(() => page.getByLabel('In-mask for Talking').inputValue()).toBe('12.5')
     await context.close()
   })
 
