@@ -1,4 +1,6 @@
+import { appendFileSync } from 'node:fs'
 import { drizzle } from 'drizzle-orm/node-postgres'
+import type { Logger } from 'drizzle-orm'
 import pg from 'pg'
 import * as schema from '../database/schema'
 
@@ -23,7 +25,7 @@ function createDatabase(url: string) {
     trackOutcomes(client)
   })
   trackOutcomes(pool)
-  return Object.assign(drizzle(pool, { schema, casing: 'snake_case' }), { pool })
+  return Object.assign(drizzle(pool, { schema, casing: 'snake_case', logger: benchLogger() }), { pool })
 }
 
 let database: Database | undefined
@@ -37,4 +39,14 @@ export function useDb(): Database {
     database = createDatabase(url)
   }
   return database
+}
+
+/**
+ * Only for `npm run bench:api`: appends every statement (with its parameters) to the file named by
+ * SEALWRIGHT_BENCH_SQL_LOG, so the bench can replay a route's SQL on bare pg as its floor.
+ */
+function benchLogger(): Logger | undefined {
+  const file = process.env.SEALWRIGHT_BENCH_SQL_LOG
+  if (!file) return undefined
+  return { logQuery: (query, params) => appendFileSync(file, `${JSON.stringify({ query, params })}\n`) }
 }
