@@ -100,7 +100,7 @@ async function main() {
   for (const l of loads) say(`  ${l.label.padEnd(16)} ${(l.gzipped / 1024).toFixed(1).padStart(7)} kB gzipped (${(l.raw / 1024).toFixed(0)} kB raw, ${l.files} files)`)
 
   say('\nCompression and caching:')
-  for (const [label, path, accept] of [['HTML', '/sign-in', 'text/html'], ['JSON', '/api/overview', 'application/json']] as const) {
+  for (const [label, path, accept] of [['HTML', '/sign-in', 'text/html'], ['JSON', '/api/fit-tests?pageSize=25', 'application/json']] as const) {
     const res = await fetch(`${base}${path}`, { headers: { ...headers, accept } })
     say(`  ${label.padEnd(6)} content-encoding: ${res.headers.get('content-encoding') ?? 'none'}`)
   }

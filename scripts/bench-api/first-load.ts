@@ -20,7 +20,11 @@ export async function firstLoadJs(baseUrl: string, cookie: string, pages: { labe
       const tab = await context.newPage()
       const bodies: Promise<Buffer | null>[] = []
       tab.on('response', (response) => {
-        if (response.request().resourceType() === 'script') bodies.push(response.body().catch(() => null))
+        if (response.request().resourceType() !== 'script') return
+        const body = response.body().catch(() => null)
+        bodies.push(body)
+        // SEALWRIGHT_BENCH_VERBOSE=1 names each script, to see what a page pulls in.
+        if (process.env.SEALWRIGHT_BENCH_VERBOSE === '1') void body.then(b => b && process.stdout.write(`    ${page.label}: ${response.url().split('/').pop()} ${(gzipSync(b).length / 1024).toFixed(1)} kB\n`))
       })
       await tab.goto(`${baseUrl}${page.path}`, { waitUntil: 'networkidle' })
       const scripts = (await Promise.all(bodies)).filter((b): b is Buffer => b !== null)

@@ -1,6 +1,6 @@
 // A large invented program for `npm run bench:api`: 2,000+ people and 20,000+ finished tests, one in
 // twenty from a 1 Hz count series. Rows are built from a handful of templates whose stored fields
-// come from the shared computation, then multiplied in PostgreSQL (set-based inserts), so seeding
+// and stored result come from the shared computation (as the finish route stores them), then multiplied in PostgreSQL (set-based inserts), so seeding
 // takes seconds. Everything here is invented.
 import type pg from 'pg'
 import { findBuiltInProtocol, protocolTimeline } from '../../shared/utils/compute'
@@ -37,7 +37,7 @@ function gridEntry(protocol: Protocol, fitFactors: number[]): FitTestEntry {
   } as FitTestEntry
 }
 
-interface Template { entry: FitTestEntry, seriesText: string | null, stored: ReturnType<typeof storedFieldsOf>['stored'] }
+type Template = { entry: FitTestEntry, seriesText: string | null } & Pick<ReturnType<typeof storedFieldsOf>, 'stored' | 'evaluation'>
 
 function templates(protocol: Protocol): Template[] {
   const out: Template[] = []
@@ -45,12 +45,12 @@ function templates(protocol: Protocol): Template[] {
   for (let k = 0; k < 18; k++) {
     const ffs = spreads[k % spreads.length]!.map(v => v * (1 + k / 20))
     const entry = gridEntry(protocol, ffs)
-    out.push({ entry, seriesText: null, stored: storedFieldsOf({ kind: 'quantitative', protocol, entry, passLevel: 100, testedOn: '2026-01-01', retestMonths: 12 }).stored })
+    out.push({ entry, seriesText: null, ...storedFieldsOf({ kind: 'quantitative', protocol, entry, passLevel: 100, testedOn: '2026-01-01', retestMonths: 12 }) })
   }
   for (const ff of [1200, 85]) {
     const seriesText = series(protocol, 6000, ff)
     const entry = { mode: 'series', exercises: [], seriesOffsetSeconds: 0, decimalMark: 'point' } as unknown as FitTestEntry
-    out.push({ entry, seriesText, stored: storedFieldsOf({ kind: 'quantitative', protocol, entry, seriesText, sampleFlowCm3PerMin: 350, passLevel: 100, testedOn: '2026-01-01', retestMonths: 12 }).stored })
+    out.push({ entry, seriesText, ...storedFieldsOf({ kind: 'quantitative', protocol, entry, seriesText, sampleFlowCm3PerMin: 350, passLevel: 100, testedOn: '2026-01-01', retestMonths: 12 }) })
   }
   return out
 }
@@ -79,21 +79,21 @@ export async function seedBench(pool: pg.Pool, { people, tests }: { people: numb
       select bench_uuid('counter' || i), '${ORG}', bench_uuid('site' || (1 + i % 4)), 'BC-' || i, 'Bench counter', 350, '2030-01-01' from generate_series(1, 8) i;
     insert into people (id, organization_id, site_id, full_name, employee_number, job_title, medical_clearance_status, medical_clearance_on)
       select bench_uuid('person' || i), '${ORG}', bench_uuid('site' || (1 + i % 4)), 'Person ' || lpad(i::text, 5, '0'), 'BN-' || i, 'Operator', 'cleared', '2026-01-15' from generate_series(1, ${people}) i;`)
-  await pool.query('create temporary table bench_templates (n int, entry jsonb, series_text text, overall float8, lower_bound boolean, passed boolean, limiting text)')
-  await pool.query(`insert into bench_templates select * from jsonb_to_recordset($1::jsonb) as x(n int, entry jsonb, series_text text, overall float8, lower_bound boolean, passed boolean, limiting text)`, [
-    JSON.stringify(list.map((t, n) => ({ n, entry: t.entry, series_text: t.seriesText, overall: t.stored.overallFitFactor, lower_bound: t.stored.overallIsLowerBound, passed: t.stored.passed, limiting: t.stored.limitingExerciseKey })))
+  await pool.query('create temporary table bench_templates (n int, entry jsonb, series_text text, evaluation jsonb, overall float8, lower_bound boolean, passed boolean, limiting text)')
+  await pool.query(`insert into bench_templates select * from jsonb_to_recordset($1::jsonb) as x(n int, entry jsonb, series_text text, evaluation jsonb, overall float8, lower_bound boolean, passed boolean, limiting text)`, [
+    JSON.stringify(list.map((t, n) => ({ n, entry: t.entry, series_text: t.seriesText, evaluation: t.evaluation, overall: t.stored.overallFitFactor, lower_bound: t.stored.overallIsLowerBound, passed: t.stored.passed, limiting: t.stored.limitingExerciseKey })))
   ])
   // Every 20th test reads a series (templates 18 and 19); the rest are typed grids.
   await run(`${tests.toLocaleString('en')} finished fit tests`, `
     insert into fit_tests (id, organization_id, record_id, status, version, person_id, site_id, tester_user_id, counter_id, respirator_model_id,
       respirator_make, respirator_model, respirator_class, respirator_size, kind, protocol_key, protocol, sample_flow_cm3_per_min, performed_at, pre_test, entry,
-      series_text, series_sha256, pass_level, overall_fit_factor, overall_is_lower_bound, passed, limiting_exercise_key, due_on, finished_at, finished_by_user_id)
+      series_text, series_sha256, evaluation, pass_level, overall_fit_factor, overall_is_lower_bound, passed, limiting_exercise_key, due_on, finished_at, finished_by_user_id)
     select bench_uuid('test' || a.i), '${ORG}', bench_uuid('record' || a.i), 'finished', 2, bench_uuid('person' || (1 + a.i % ${people})),
       bench_uuid('site' || (1 + (a.i % ${people}) % 4)), bench_uuid('tester' || (1 + a.i % 12)), bench_uuid('counter' || (1 + a.i % 8)), bench_uuid('model' || (1 + a.i % 6)),
       'Bench make ' || ((1 + a.i % 6) % 3), 'BM-' || (1 + a.i % 6), 'elastomeric-half-mask', (array['S','M','L'])[1 + a.i % 3],
       'quantitative', 'osha-standard', $1::jsonb, 350, a.at,
       '{"medicalClearanceCurrent":true,"nothingCrossingSeal":true,"userSealCheckDone":true,"comfortAcceptable":true}'::jsonb, t.entry,
-      t.series_text, case when t.series_text is null then null else encode(sha256(convert_to(t.series_text, 'UTF8')), 'hex') end,
+      t.series_text, case when t.series_text is null then null else encode(sha256(convert_to(t.series_text, 'UTF8')), 'hex') end, t.evaluation,
       100, t.overall, t.lower_bound, t.passed, t.limiting, case when t.passed then (a.at + interval '1 year')::date end, a.at + interval '9 minutes', bench_uuid('tester' || (1 + a.i % 12))
     from (select i, now() - interval '3 years' + (i::float / ${tests}) * interval '3 years' as at from generate_series(1, ${tests}) i) a
     join bench_templates t on t.n = case when a.i % 20 = 0 then 18 + (a.i / 20) % 2 else a.i % 18 end`, [JSON.stringify(protocol)])
