@@ -57,22 +57,6 @@ export default defineNuxtConfig({
       pattern: 'ibm-plex-sans-latin-{400,600}-normal.woff'
     }]
   },
-  // mathjs (the exposure calculator) and chart.js in chunks of their own, so the pages that never
-  // use them never download them alongside shared code (see app/utils/lazy-chart.ts).
-  vite: {
-    $client: {
-      build: {
-        rollupOptions: {
-          output: {
-            manualChunks(id: string) {
-              if (/node_modules\/(mathjs|decimal\.js|fraction\.js|complex\.js|typed-function|javascript-natural-sort|escape-latex|seedrandom|tiny-emitter)\//.test(id)) return 'mathjs'
-              if (/node_modules\/(chart\.js|vue-chartjs|@kurkle)\//.test(id)) return 'chartjs'
-            }
-          }
-        }
-      }
-    }
-  },
   typescript: {
     strict: true
   },
