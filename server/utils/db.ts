@@ -42,11 +42,21 @@ export function useDb(): Database {
 }
 
 /**
- * Only for `npm run bench:api`: appends every statement (with its parameters) to the file named by
- * SEALWRIGHT_BENCH_SQL_LOG, so the bench can replay a route's SQL on bare pg as its floor.
+ * Only for `npm run bench:api`: with SEALWRIGHT_BENCH_SQL_LOG set, the statements (with their
+ * parameters) of each request carrying `x-sealwright-bench-capture: 1` are appended to that file,
+ * so the bench can replay a route's SQL on bare pg as its floor. Other requests write nothing.
  */
 function benchLogger(): Logger | undefined {
   const file = process.env.SEALWRIGHT_BENCH_SQL_LOG
   if (!file) return undefined
-  return { logQuery: (query, params) => appendFileSync(file, `${JSON.stringify({ query, params })}\n`) }
+  return {
+    logQuery: (query, params) => {
+      try {
+        if (getRequestHeader(useEvent(), 'x-sealwright-bench-capture') !== '1') return
+      } catch {
+        return
+      }
+      appendFileSync(file, `${JSON.stringify({ query, params })}\n`)
+    }
+  }
 }
