@@ -51,7 +51,7 @@ export async function findCoverageMany(
   const to = new Date(Math.max(...times) + 2 * DAY_MS).toISOString()
   const [sites, { rows: [loaded] }] = await Promise.all([
     listSites(organizationId),
-    useDb().execute<{ counters: { id: string, calibrationDueOn: string | null }[], checks: { id: string, counterId: string | null, benchRigId: string | null, status: string, completedAt: string | null }[] }>(sql`select
+    useDb().execute<{ counters: { id: string, calibrationDueOn: string | null }[], checks: { id: string, counterId: string, benchRigId: string | null, status: string, completedAt: string | null }[] }>(sql`select
       (select coalesce(json_agg(json_build_object('id', ${k.id}, 'calibrationDueOn', ${k.calibrationDueOn})), '[]'::json) from ${k} where ${k.organizationId} = ${organizationId}) as counters,
       (select coalesce(json_agg(json_build_object('id', ${c.id}, 'counterId', ${c.counterId}, 'benchRigId', ${c.benchRigId}, 'status', ${c.status}, 'completedAt', ${c.completedAt})), '[]'::json)
         from ${c} where ${c.organizationId} = ${organizationId} and ${c.completedAt} between ${from}::timestamptz and ${to}::timestamptz) as checks`)

@@ -5,7 +5,7 @@ const t = schema.fitTests
 const DAY = sql.raw('interval \'2 days\'')
 
 type RevisionSummary = { id: string, revision: number, status: FitTestRow['status'], revisionReason: string | null, finishedAt: Date | null, createdAt: Date }
-interface CoverageCheck { id: string, counterId: string | null, benchRigId: string | null, status: string, completedAt: Date | null }
+interface CoverageCheck { id: string, counterId: string, benchRigId: string | null, status: string, completedAt: Date | null }
 
 const asDate = (value: string | null) => (value === null ? null : new Date(value))
 
