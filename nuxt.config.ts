@@ -54,6 +54,9 @@ export default defineNuxtConfig({
     errorHandler: ['~~/server/error-handler.ts', nuxtPageErrorHandler],
     // Lets the database layer know which request sent a statement (see server/utils/db-outcome.ts).
     experimental: { asyncContext: true },
+    // Built assets ship with .gz and .br copies, served to clients that accept them; pages and API
+    // answers are gzipped as they are sent (server/plugins/compression.ts).
+    compressPublicAssets: { gzip: true, brotli: true },
     // The fit card PDF embeds the same IBM Plex Sans the pages use, shipped with the server.
     serverAssets: [{
       baseName: 'fonts',

@@ -1,4 +1,4 @@
-import { and, eq } from 'drizzle-orm'
+import { and, eq, sql } from 'drizzle-orm'
 import type { H3Event } from 'h3'
 import type { Role } from '#shared/utils/roles'
 import type { Permission } from '#shared/utils/permissions'
@@ -26,18 +26,24 @@ export async function requireRole(event: H3Event, permission?: Permission): Prom
   if (!sessionUser?.id) {
     throw httpError(401, 'Sign in to continue.')
   }
+  // One round trip: the user, their organization and its sites (kept for this request, see
+  // requestOrganization in organizations.ts).
+  const u = schema.users
   const [user] = await useDb()
     .select({
-      id: schema.users.id,
-      organizationId: schema.users.organizationId,
-      role: schema.users.role,
-      email: schema.users.email,
-      displayName: schema.users.displayName,
-      active: schema.users.active,
-      sessionVersion: schema.users.sessionVersion
+      id: u.id,
+      organizationId: u.organizationId,
+      role: u.role,
+      email: u.email,
+      displayName: u.displayName,
+      active: u.active,
+      sessionVersion: u.sessionVersion,
+      organization: schema.organizations,
+      sites: sitesOfOrganization()
     })
-    .from(schema.users)
-    .where(and(eq(schema.users.id, sessionUser.id), eq(schema.users.organizationId, sessionUser.organizationId)))
+    .from(u)
+    .innerJoin(schema.organizations, eq(schema.organizations.id, u.organizationId))
+    .where(and(eq(u.id, sessionUser.id), eq(u.organizationId, sessionUser.organizationId)))
   if (!user || !user.active) {
     await clearUserSession(event)
     throw httpError(401, 'Your account is no longer active. Ask your program administrator.')
@@ -52,5 +58,17 @@ export async function requireRole(event: H3Event, permission?: Permission): Prom
   }
   const caller: Caller = { id: user.id, organizationId: user.organizationId, role: user.role, email: user.email, displayName: user.displayName }
   event.context.caller = caller
+  rememberOrganization(event, user.organization, user.sites)
   return caller
+}
+
+type Site = typeof schema.sites.$inferSelect
+
+/** The caller's sites, ordered by name, as rows shaped like a `select` of `sites` would give. */
+function sitesOfOrganization() {
+  return sql<Site[]>`(select coalesce(json_agg(json_build_object(
+  'id', s.id, 'organizationId', s.organization_id, 'name', s.name, 'timeZone', s.time_zone, 'address', s.address,
+  'createdAt', s.created_at, 'updatedAt', s.updated_at) order by s.name), '[]'::json)
+  from sites s where s.organization_id = ${schema.users.organizationId})`.mapWith(rows => (rows as (Site & { createdAt: string, updatedAt: string })[])
+    .map(s => ({ ...s, createdAt: new Date(s.createdAt), updatedAt: new Date(s.updatedAt) })))
 }

@@ -1,4 +1,4 @@
-import { and, between, eq, or } from 'drizzle-orm'
+import { and, between, eq, or, sql } from 'drizzle-orm'
 import { decideCoverage } from '#shared/utils/coverage'
 import type { Coverage } from '#shared/utils/coverage'
 
@@ -34,8 +34,8 @@ export async function findCoverage(
 }
 
 /**
- * Coverage of many results at once (a list page): one query for the checks of the whole span,
- * one for the counters, then the same pure rule per result.
+ * Coverage of many results at once (a list page): one query for the counters and the checks of
+ * the whole span (the sites come with the caller), then the same pure rule per result.
  */
 export async function findCoverageMany(
   organizationId: string,
@@ -46,13 +46,18 @@ export async function findCoverageMany(
   if (measured.length === 0) return out
   const times = measured.map(r => new Date(r.performedAt).getTime())
   const c = schema.readinessChecks
-  const [sites, counters, checks] = await Promise.all([
+  const k = schema.counters
+  const from = new Date(Math.min(...times) - 2 * DAY_MS).toISOString()
+  const to = new Date(Math.max(...times) + 2 * DAY_MS).toISOString()
+  const [sites, { rows: [loaded] }] = await Promise.all([
     listSites(organizationId),
-    useDb().select({ id: schema.counters.id, calibrationDueOn: schema.counters.calibrationDueOn }).from(schema.counters)
-      .where(eq(schema.counters.organizationId, organizationId)),
-    useDb().select({ id: c.id, counterId: c.counterId, benchRigId: c.benchRigId, status: c.status, completedAt: c.completedAt }).from(c)
-      .where(and(eq(c.organizationId, organizationId), between(c.completedAt, new Date(Math.min(...times) - 2 * DAY_MS), new Date(Math.max(...times) + 2 * DAY_MS))))
+    useDb().execute<{ counters: { id: string, calibrationDueOn: string | null }[], checks: { id: string, counterId: string, benchRigId: string | null, status: string, completedAt: string | null }[] }>(sql`select
+      (select coalesce(json_agg(json_build_object('id', ${k.id}, 'calibrationDueOn', ${k.calibrationDueOn})), '[]'::json) from ${k} where ${k.organizationId} = ${organizationId}) as counters,
+      (select coalesce(json_agg(json_build_object('id', ${c.id}, 'counterId', ${c.counterId}, 'benchRigId', ${c.benchRigId}, 'status', ${c.status}, 'completedAt', ${c.completedAt})), '[]'::json)
+        from ${c} where ${c.organizationId} = ${organizationId} and ${c.completedAt} between ${from}::timestamptz and ${to}::timestamptz) as checks`)
   ])
+  const counters = loaded!.counters
+  const checks = loaded!.checks.map(check => ({ ...check, completedAt: check.completedAt === null ? null : new Date(check.completedAt) }))
   const zone = new Map(sites.map(s => [s.id, s.timeZone]))
   const calibration = new Map(counters.map(k => [k.id, k]))
   // Checks sorted by time, so each result looks only at the ±2-day slice around it.

@@ -1,4 +1,6 @@
+import { appendFileSync } from 'node:fs'
 import { drizzle } from 'drizzle-orm/node-postgres'
+import type { Logger } from 'drizzle-orm'
 import pg from 'pg'
 import * as schema from '../database/schema'
 
@@ -23,7 +25,7 @@ function createDatabase(url: string) {
     trackOutcomes(client)
   })
   trackOutcomes(pool)
-  return Object.assign(drizzle(pool, { schema, casing: 'snake_case' }), { pool })
+  return Object.assign(drizzle(pool, { schema, casing: 'snake_case', logger: benchLogger() }), { pool })
 }
 
 let database: Database | undefined
@@ -37,4 +39,24 @@ export function useDb(): Database {
     database = createDatabase(url)
   }
   return database
+}
+
+/**
+ * Only for `npm run bench:api`: with SEALWRIGHT_BENCH_SQL_LOG set, the statements (with their
+ * parameters) of each request carrying `x-sealwright-bench-capture: 1` are appended to that file,
+ * so the bench can replay a route's SQL on bare pg as its floor. Other requests write nothing.
+ */
+function benchLogger(): Logger | undefined {
+  const file = process.env.SEALWRIGHT_BENCH_SQL_LOG
+  if (!file) return undefined
+  return {
+    logQuery: (query, params) => {
+      try {
+        if (getRequestHeader(useEvent(), 'x-sealwright-bench-capture') !== '1') return
+      } catch {
+        return
+      }
+      appendFileSync(file, `${JSON.stringify({ query, params })}\n`)
+    }
+  }
 }

@@ -59,24 +59,23 @@ const columns = {
   testerName: schema.users.displayName
 }
 
-function baseQuery() {
-  return useDb().select(columns).from(t)
-    .innerJoin(p, eq(p.id, t.personId))
-    .innerJoin(schema.sites, eq(schema.sites.id, t.siteId))
-    .innerJoin(schema.users, eq(schema.users.id, t.testerUserId))
-    .leftJoin(schema.counters, eq(schema.counters.id, t.counterId))
-}
-
 export async function listFitTests(organizationId: string, q: ListFitTestsQuery, onlyPersonUserId?: string) {
   const where = conditions(organizationId, q, onlyPersonUserId)
   const order = q.dir === 'asc' ? asc : desc
   const sortColumn = q.sort === 'person' ? p.fullName : q.sort === 'overallFitFactor' ? t.overallFitFactor : t.performedAt
-  const [rows, [total]] = await Promise.all([
-    baseQuery().where(where).orderBy(order(sortColumn), desc(t.performedAt)).limit(q.pageSize).offset((q.page - 1) * q.pageSize),
-    useDb().select({ n: count() }).from(t).innerJoin(p, eq(p.id, t.personId)).where(where)
-  ])
+  // The page and its total in one round trip (the total is an uncorrelated subquery, run once).
+  const totalOf = sql<number>`(${useDb().select({ n: count() }).from(t).innerJoin(p, eq(p.id, t.personId)).where(where)})`.mapWith(Number)
+  const found = await useDb().select({ ...columns, total: totalOf }).from(t)
+    .innerJoin(p, eq(p.id, t.personId))
+    .innerJoin(schema.sites, eq(schema.sites.id, t.siteId))
+    .innerJoin(schema.users, eq(schema.users.id, t.testerUserId))
+    .leftJoin(schema.counters, eq(schema.counters.id, t.counterId))
+    .where(where).orderBy(order(sortColumn), desc(t.performedAt)).limit(q.pageSize).offset((q.page - 1) * q.pageSize)
+  const rows = found.map(({ total: _total, ...row }) => row)
+  // A page past the end has no row to carry the total.
+  const total = found[0]?.total ?? (q.page > 1 ? (await useDb().select({ n: count() }).from(t).innerJoin(p, eq(p.id, t.personId)).where(where))[0]?.n ?? 0 : 0)
   const coverage = await findCoverageMany(organizationId, rows)
-  return { rows: rows.map(r => ({ ...r, coverage: coverage.get(r.id) ?? null })), total: total?.n ?? 0, page: q.page, pageSize: q.pageSize }
+  return { rows: rows.map(r => ({ ...r, coverage: coverage.get(r.id) ?? null })), total, page: q.page, pageSize: q.pageSize }
 }
 
 /** The list's rows with the raw inputs the export recomputes each exercise from. */

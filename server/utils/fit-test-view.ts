@@ -1,53 +1,67 @@
-import { and, eq } from 'drizzle-orm'
+import { eq } from 'drizzle-orm'
 import { FIT_TEST_CAUTIONS, findRespiratorClass } from '#shared/utils/compute'
+import { decideCoverage } from '#shared/utils/coverage'
 import type { Caller } from './auth'
+import type { Evaluation } from '#shared/utils/fit-test-evaluate'
 import type { FitTestRow } from './fit-tests'
+import type { FitTestRecord } from './fit-test-record'
 import { cardDecision, coverageFlagOf } from '#shared/utils/fit-card-rules'
 import { recordCitations } from '#shared/utils/jurisdiction'
 
-/** Everything the result page, the record and the card need about one revision. */
-export async function fitTestView(caller: Caller, row: FitTestRow) {
-  const db = useDb()
-  const org = await findOrganization(caller.organizationId)
-  const site = await findSite(caller.organizationId, row.siteId)
-  const [person] = await db.select().from(schema.people).where(and(eq(schema.people.organizationId, caller.organizationId), eq(schema.people.id, row.personId)))
-  const [tester] = await db.select({ displayName: schema.users.displayName }).from(schema.users).where(eq(schema.users.id, row.testerUserId))
-  const [counter] = row.counterId
-    ? await db.select().from(schema.counters).where(eq(schema.counters.id, row.counterId))
-    : [null]
-  const { evaluation } = computeStoredResult(row, org, site.timeZone)
-  const [maskUnit] = row.maskUnitId
-    ? await db.select({ id: schema.maskUnits.id, serialNumber: schema.maskUnits.serialNumber, state: schema.maskUnits.state }).from(schema.maskUnits).where(eq(schema.maskUnits.id, row.maskUnitId))
-    : [null]
-  const [revisions, card, coverage] = await Promise.all([
-    listRevisions(caller.organizationId, row.recordId),
-    findCard(caller.organizationId, row),
-    row.counterId ? findCoverage(caller.organizationId, { counterId: row.counterId, siteId: row.siteId, performedAt: row.performedAt }) : null
-  ])
+/**
+ * Everything the result page, the record and the card need about one revision: one query for the
+ * record and its relations (the organization was read with the caller). A wearer reads only
+ * their own records; to anyone else another's is the same 404 as a missing one.
+ */
+export async function fitTestView(caller: Caller, rowOrId: FitTestRow | string) {
+  const record = await loadFitTestRecord(caller.organizationId, typeof rowOrId === 'string' ? rowOrId : rowOrId.id)
+  if (caller.role === 'wearer' && record.person?.userId !== caller.id) {
+    throw httpError(404, 'No such fit test in your organization.')
+  }
+  return viewOf(record, await findOrganization(caller.organizationId))
+}
+
+function viewOf(record: FitTestRecord, org: Awaited<ReturnType<typeof findOrganization>>) {
+  const { test: row, site, person, counter } = record
+  const evaluation = resultOf(row, org, site.timeZone)
+  const coverage = row.counterId
+    ? decideCoverage({ counterId: row.counterId, benchRigId: null, performedAt: row.performedAt, timeZone: site.timeZone }, record.coverageChecks, counter ? { calibrationDueOn: counter.calibrationDueOn } : null)
+    : null
+  const card = cardOf(record)
+  const { evaluation: _stored, ...fields } = row
   return {
-    ...row,
+    ...fields,
     seriesText: row.status === 'draft' ? row.seriesText : null,
     hasSeries: Boolean(row.seriesText),
     person: person ? { id: person.id, fullName: person.fullName, employeeNumber: person.employeeNumber, jobTitle: person.jobTitle } : null,
-    site: { id: site.id, name: site.name, timeZone: site.timeZone },
-    testerName: tester?.displayName ?? 'Unknown',
-    counter: counter ? { id: counter.id, serialNumber: counter.serialNumber, description: counter.description, sampleFlowCm3PerMin: counter.sampleFlowCm3PerMin, calibrationDueOn: counter.calibrationDueOn } : null,
+    site,
+    testerName: record.testerName ?? 'Unknown',
+    counter,
     respiratorClassLabel: findRespiratorClass(row.respiratorClass)?.label ?? row.respiratorClass,
     organization: { name: org.name, ruleSet: org.ruleSet },
     result: evaluation?.result ?? null,
     seriesIssues: evaluation?.seriesIssues ?? [],
-    revisions,
+    revisions: record.revisions,
     coverage,
     // A verification link only for a revision that passed and was given a card; a failed test has none.
     cardToken: card && row.passed && row.status !== 'draft' ? card.token : null,
     card: cardDecision({ status: row.status, passed: row.passed, coverage: coverageFlagOf(coverage), uncoveredResults: org.settings.uncoveredResults }),
     coverageFlag: coverageFlagOf(coverage),
     citations: recordCitations(org.ruleSet),
-    maskUnit,
+    maskUnit: record.maskUnit,
     cautions: FIT_TEST_CAUTIONS
   }
 }
-export type FitTestView = Awaited<ReturnType<typeof fitTestView>>
+export type FitTestView = ReturnType<typeof viewOf>
+
+/**
+ * A finished revision's result as stored when it was finished (never re-parsed from its series);
+ * a draft, or a row loaded before results were stored, is recomputed from its raw inputs.
+ */
+function resultOf(row: FitTestRow, org: Awaited<ReturnType<typeof findOrganization>>, timeZone: string) {
+  if (row.status !== 'draft' && row.evaluation) return row.evaluation
+  return computeStoredResult(row, org, timeZone).evaluation
+}
 
 /** Tester, reviewer and trainer read every record; a wearer only their own. */
 export async function assertMayRead(caller: Caller, row: FitTestRow) {
@@ -56,4 +70,13 @@ export async function assertMayRead(caller: Caller, row: FitTestRow) {
   if (person?.userId !== caller.id) {
     throw httpError(404, 'No such fit test in your organization.')
   }
+}
+
+/**
+ * What a draft save answers: the saved revision with its new version and recomputed result, but
+ * not the series the client has just sent, nor the relations it already shows.
+ */
+export function draftSaved(row: FitTestRow, evaluation: Evaluation | null) {
+  const { seriesText, evaluation: _stored, ...fields } = row
+  return { ...fields, hasSeries: Boolean(seriesText), result: evaluation?.result ?? null, seriesIssues: evaluation?.seriesIssues ?? [] }
 }

@@ -27,7 +27,7 @@ export default defineEventHandler(async (event) => {
   if (changes.maskUnitId !== undefined || changes.respiratorSize !== undefined) {
     await assertMaskUnitChoice(caller.organizationId, { respiratorModelId: before.respiratorModelId, respiratorSize: next.respiratorSize, maskUnitId: next.maskUnitId, revision: before.revision })
   }
-  const { stored } = computeStoredResult(next, await findOrganization(caller.organizationId), refs.site.timeZone)
+  const { stored, evaluation } = computeStoredResult(next, await findOrganization(caller.organizationId), refs.site.timeZone)
   const t = schema.fitTests
   const saved = await useDb().transaction(async (tx) => {
     const [row] = await tx.update(t).set({
@@ -41,5 +41,5 @@ export default defineEventHandler(async (event) => {
   })
   // Another save won the race between our read and our write.
   if (!saved) throw staleDraftError()
-  return fitTestView(caller, saved)
+  return draftSaved(saved, evaluation)
 })

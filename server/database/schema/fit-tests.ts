@@ -2,6 +2,7 @@ import { relations } from 'drizzle-orm'
 import { boolean, date, doublePrecision, index, integer, jsonb, pgTable, text, timestamp, uniqueIndex, uuid } from 'drizzle-orm/pg-core'
 import type { FitTestEntry, PreTestChecks } from '../../../shared/utils/fit-test-schemas'
 import type { Protocol } from '../../../shared/utils/compute'
+import type { Evaluation } from '../../../shared/utils/fit-test-evaluate'
 import { FIT_TEST_KINDS, FIT_TEST_STATUSES } from '../../../shared/utils/enums'
 import { id, oneOf, timestamps } from './columns'
 import { counters } from './equipment'
@@ -68,6 +69,13 @@ export const fitTests = pgTable('fit_tests', {
   passed: boolean(),
   limitingExerciseKey: text(),
   dueOn: date({ mode: 'string' }),
+  /**
+   * The server's recomputation of the raw inputs, written when the revision is finished, so that
+   * reading a finished record never re-parses its series. `tests/api/stored-results.test.ts`
+   * checks that recomputing from the raw inputs gives exactly this. Null on drafts and on rows
+   * loaded before it existed (those are recomputed on read).
+   */
+  evaluation: jsonb().$type<Evaluation>(),
   finishedAt: timestamp({ withTimezone: true }),
   finishedByUserId: uuid().references(() => users.id, { onDelete: 'restrict' }),
   withdrawnReason: text(),

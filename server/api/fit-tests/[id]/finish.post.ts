@@ -30,7 +30,7 @@ export default defineEventHandler(async (event) => {
     if (revisions.some(r => r.status === 'withdrawn')) {
       throw httpError(409, 'This record was withdrawn while the correction was open; a correction does not reinstate it. Start a new fit test instead.')
     }
-    const [done] = await tx.update(t).set({ ...stored, status: 'finished', finishedAt: new Date(), finishedByUserId: caller.id, version: row.version + 1 })
+    const [done] = await tx.update(t).set({ ...stored, evaluation: evaluation ?? null, status: 'finished', finishedAt: new Date(), finishedByUserId: caller.id, version: row.version + 1 })
       .where(and(eq(t.id, id), eq(t.version, version), eq(t.status, 'draft'))).returning({ id: t.id })
     if (!done) throw staleDraftError()
     // A corrected revision replaces the one it corrects; the earlier stays readable as superseded.
@@ -40,5 +40,5 @@ export default defineEventHandler(async (event) => {
     await recordExerciseResults(tx, caller.organizationId, id, evaluation?.result)
     await writeAudit(tx, caller, { entityType: 'fit-test', entityId: id, action: 'finished', after: { revision: row.revision, overallFitFactor: stored.overallFitFactor, passed: stored.passed, passLevel: stored.passLevel, dueOn: stored.dueOn } })
   })
-  return fitTestView(caller, await findFitTest(caller.organizationId, id))
+  return fitTestView(caller, id)
 })

@@ -1,0 +1,1 @@
+ALTER TABLE "fit_tests" ADD COLUMN "evaluation" jsonb;
