@@ -24,7 +24,7 @@ export function usePersonActions(personId: string, dataKey = `person-${personId}
     addClearance: (input: z.output<typeof clearanceSchema>) => then($fetch(`/api/people/${personId}/clearances`, { method: 'POST', body: input })),
     linkAccount: (body: Record<string, unknown>) => then($fetch(`/api/people/${personId}/link`, { method: 'POST', body })),
     unlinkAccount: () => then($fetch(`/api/people/${personId}/unlink`, { method: 'POST', body: {} })),
-    previewReminder: () => $fetch<{ results: { to: string | null, skipped: string | null, message: { subject: string, text: string } | null }[] }>('/api/reminders/preview', { method: 'POST', body: { personIds: [personId] } }),
-    sendReminder: () => then($fetch<{ sent: number }>('/api/reminders/send', { method: 'POST', body: { personIds: [personId] } }))
+    previewReminder: () => useReminderActions().preview([personId]),
+    sendReminder: () => then(useReminderActions().send([personId]))
   }
 }
