@@ -17,9 +17,10 @@ export function useListFilters<K extends 'people' | 'fitTests'>(list: K, pageSiz
   /** Back to the unfiltered list, keeping the sort a person chose. */
   function clear() {
     search.value = ''
-    for (const key of Object.keys(filters.value) as (keyof typeof filters.value)[]) {
+    const values = filters.value as Record<string, unknown>
+    for (const key of Object.keys(values)) {
       if (key === 'sort' || key === 'dir') continue
-      (filters.value as Record<string, unknown>)[key] = key === 'page' ? 1 : ''
+      values[key] = key === 'page' ? 1 : ''
     }
   }
   return { filters, search, query, clear }

@@ -17,14 +17,16 @@ export function usePersonActions(personId: string, dataKey = `person-${personId}
     await refresh()
     return value
   }
+  // A plain string address keeps the compiler out of Nitro's route-type inference for each path.
+  const call = (path: string, method: 'POST' | 'PATCH' | 'DELETE', body?: Record<string, unknown>) => then($fetch<unknown>(`/api/people/${personId}${path}`, { method, body }))
   return {
-    update: (changes: Partial<PersonInput> & { reminderOptOut?: boolean }) => then($fetch(`/api/people/${personId}`, { method: 'PATCH', body: changes })),
-    assignRespirator: (respiratorModelId: string) => then($fetch(`/api/people/${personId}/respirators`, { method: 'POST', body: { respiratorModelId } })),
-    unassignRespirator: (modelId: string) => then($fetch(`/api/people/${personId}/respirators/${modelId}`, { method: 'DELETE' })),
-    addClearance: (input: z.output<typeof clearanceSchema>) => then($fetch(`/api/people/${personId}/clearances`, { method: 'POST', body: input })),
-    linkAccount: (body: Record<string, unknown>) => then($fetch(`/api/people/${personId}/link`, { method: 'POST', body })),
-    unlinkAccount: () => then($fetch(`/api/people/${personId}/unlink`, { method: 'POST', body: {} })),
-    previewReminder: () => $fetch<{ results: { to: string | null, skipped: string | null, message: { subject: string, text: string } | null }[] }>('/api/reminders/preview', { method: 'POST', body: { personIds: [personId] } }),
-    sendReminder: () => then($fetch<{ sent: number }>('/api/reminders/send', { method: 'POST', body: { personIds: [personId] } }))
+    update: (changes: Partial<PersonInput> & { reminderOptOut?: boolean }) => call('', 'PATCH', changes),
+    assignRespirator: (respiratorModelId: string) => call('/respirators', 'POST', { respiratorModelId }),
+    unassignRespirator: (modelId: string) => call(`/respirators/${modelId}`, 'DELETE'),
+    addClearance: (input: z.output<typeof clearanceSchema>) => call('/clearances', 'POST', input as Record<string, unknown>),
+    linkAccount: (body: Record<string, unknown>) => call('/link', 'POST', body),
+    unlinkAccount: () => call('/unlink', 'POST', {}),
+    previewReminder: () => useReminderActions().preview([personId]),
+    sendReminder: () => then(useReminderActions().send([personId]))
   }
 }

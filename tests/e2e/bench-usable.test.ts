@@ -60,7 +60,7 @@ describe('every page fits a 360 px phone', () => {
     }
     expect(wide).toEqual([])
     await page.close()
-  })
+  }, 300_000)
 
   it('shows the fit-test list as cards whose first line is the verdict and its coverage', async () => {
     const page = await signedIn('reviewer')
