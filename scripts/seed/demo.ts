@@ -8,6 +8,7 @@ import { seedOversight } from './oversight'
 import { hashPassword } from './hash'
 import { seedEquipment } from './equipment'
 import { seedInsights } from './insights'
+import { rebuildInsightFacts } from '../../server/database/insight-facts'
 
 export interface SeededOrganization {
   id: string
@@ -46,5 +47,7 @@ export async function seedDemo(db: SeedDb, onProgress: (text: string) => void = 
   onProgress('Exposure assessments')
   await seedAssessments(db, seeded)
   await seedOversight(db, seeded)
+  onProgress('Insights summary')
+  await rebuildInsightFacts(db)
   return seeded
 }
