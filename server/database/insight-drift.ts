@@ -65,25 +65,35 @@ export function storeDriftSql(series: SQL): SQL {
  * changes the points of a series, so the fits are worked out from the filtered summary rows.
  */
 export async function driftingPeople(db: SqlRunner, organizationId: string, f: InsightFilters, limit = 100) {
-  const stored = keepsWholeSeries(f) && !f.to
-  const model = f.respiratorModelId ? sql`and d.respirator_model_id = ${f.respiratorModelId}` : sql``
-  const source = stored
-    ? sql`select d.person_id, d.respirator_model_id, d.latest_fit_test_id as latest_id, d.tests, d.slope_per_year as slope,
-        d.latest_ln_fit_factor as latest_y, d.median_ln_fit_factor as median_y, d.predicted_at_due, d.next_due_on, d.pass_level,
-        d.below_median, d.predicts_fail, d.series, d.dates
-      from insight_drift d where d.organization_id = ${organizationId} ${model}`
-    : driftFits(factScope(organizationId, f))
-  const r = await rows<Record<string, unknown>>(db, sql`
-    with d as (${source})
-    select d.*, p.full_name, p.employee_number, ft.respirator_make, ft.respirator_model, ft.respirator_size, (select count(*) from d) as candidates
-    from d
-    join people p on p.id = d.person_id
-    join fit_tests ft on ft.id = d.latest_id
-    where d.below_median or d.predicts_fail
-    order by d.slope asc, d.person_id
-    limit ${limit}`)
-  let candidates = int(r[0]?.candidates)
-  if (r.length === 0) candidates = int((await rows<{ n: unknown }>(db, sql`with d as (${source}) select count(*) as n from d`))[0]?.n)
+  let r: Record<string, unknown>[]
+  let candidates: number
+  const show = sql`p.full_name, p.employee_number, ft.respirator_make, ft.respirator_model, ft.respirator_size`
+  if (keepsWholeSeries(f) && !f.to) {
+    // The stored fits: the flagged ones through their partial index, and a count of all.
+    const model = f.respiratorModelId ? sql`and d.respirator_model_id = ${f.respiratorModelId}` : sql``
+    r = await rows<Record<string, unknown>>(db, sql`
+      select d.person_id, d.respirator_model_id, d.tests, d.slope_per_year as slope, d.latest_ln_fit_factor as latest_y,
+        d.median_ln_fit_factor as median_y, d.predicted_at_due, d.next_due_on, d.pass_level, d.below_median, d.predicts_fail, d.series, d.dates, ${show}
+      from insight_drift d
+      join people p on p.id = d.person_id
+      join fit_tests ft on ft.id = d.latest_fit_test_id
+      where d.organization_id = ${organizationId} ${model} and (d.below_median or d.predicts_fail)
+      order by d.slope_per_year asc, d.person_id
+      limit ${limit}`)
+    candidates = int((await rows<{ n: unknown }>(db, sql`select count(*) as n from insight_drift d where d.organization_id = ${organizationId} ${model}`))[0]?.n)
+  } else {
+    r = await rows<Record<string, unknown>>(db, sql`
+      with d as (${driftFits(factScope(organizationId, f))})
+      select d.*, ${show}, (select count(*) from d) as candidates
+      from d
+      join people p on p.id = d.person_id
+      join fit_tests ft on ft.id = d.latest_id
+      where d.below_median or d.predicts_fail
+      order by d.slope asc, d.person_id
+      limit ${limit}`)
+    candidates = int(r[0]?.candidates)
+    if (r.length === 0) candidates = int((await rows<{ n: unknown }>(db, sql`with d as (${driftFits(factScope(organizationId, f))}) select count(*) as n from d`))[0]?.n)
+  }
   return {
     candidates,
     people: r.map(x => ({

@@ -62,42 +62,47 @@ export async function modelSummaries(db: SqlRunner, organizationId: string, f: I
   }))
 }
 
-// Per movement: tests that include it, tests it limits, and its mean share of the penetration.
+// Per movement: tests that include it, tests it limits, and the sum of its shares of the penetration.
 const canonicalColumns = sql.raw(CANONICAL_MOVEMENTS.map((m, i) =>
-  `count(f.movement_shares[${i + 1}]) as t${i}, count(*) filter (where f.limiting_movement = '${m}') as l${i}, avg(f.movement_shares[${i + 1}]) as s${i}`).join(',\n      '))
+  `count(f.movement_shares[${i + 1}]) as t${i}, count(*) filter (where f.limiting_movement = '${m}') as l${i}, sum(f.movement_shares[${i + 1}]) as s${i}`).join(',\n      '))
+
+interface ExerciseRow { protocolKey: string, respiratorModelId: string | null, make: string | null, model: string | null, movement: string, tests: number, limiting: number, meanShare: number }
 
 /**
  * Which exercise breaks the seal: per protocol (and per protocol and model), how often each
  * movement is the limiting one and its mean share of the penetration. Exercises of one movement
- * within a test (normal breathing at start and end) add their shares. The canonical movements
- * are columns of one pass over the results; movements of custom protocols come from their map.
+ * within a test (normal breathing at start and end) add their shares. One pass over the results
+ * groups by protocol and model, the canonical movements as columns (custom protocols' movements
+ * from their map); the all-models rows are those groups added up.
  */
-export async function exerciseSummaries(db: SqlRunner, organizationId: string, f: InsightFilters) {
-  const groups = sql`grouping sets ((f.protocol_key), (f.protocol_key, f.respirator_model_id, f.respirator_make, f.respirator_model))`
+export async function exerciseSummaries(db: SqlRunner, organizationId: string, f: InsightFilters): Promise<ExerciseRow[]> {
   const canonical = await rows<Record<string, unknown>>(db, sql`
-    select f.protocol_key, f.respirator_model_id, f.respirator_make, f.respirator_model, grouping(f.respirator_model_id) as all_models,
-      ${canonicalColumns}
+    select f.protocol_key, f.respirator_model_id, f.respirator_make, f.respirator_model, ${canonicalColumns}
     from insight_results f
     where ${factScope(organizationId, f)} and f.movement_shares is not null
-    group by ${groups}`)
+    group by 1, 2, 3, 4`)
   const custom = await rows<Record<string, unknown>>(db, sql`
-    select f.protocol_key, f.respirator_model_id, f.respirator_make, f.respirator_model, grouping(f.respirator_model_id) as all_models, o.key as movement,
-      count(*) as tests, count(*) filter (where f.limiting_movement = o.key) as limiting, avg(o.value::float8) as mean_share
+    select f.protocol_key, f.respirator_model_id, f.respirator_make, f.respirator_model, o.key as movement,
+      count(*) as tests, count(*) filter (where f.limiting_movement = o.key) as limiting, sum(o.value::float8) as share_sum
     from insight_results f cross join lateral jsonb_each_text(f.other_shares) o
     where ${factScope(organizationId, f)} and f.other_shares is not null
-    group by grouping sets ((f.protocol_key, o.key), (f.protocol_key, f.respirator_model_id, f.respirator_make, f.respirator_model, o.key))`)
-  const head = (x: Record<string, unknown>) => {
-    const allModels = x.all_models === 1 || x.all_models === '1'
-    return {
-      protocolKey: String(x.protocol_key),
-      respiratorModelId: allModels ? null : String(x.respirator_model_id),
-      make: allModels || x.respirator_make === null ? null : String(x.respirator_make),
-      model: allModels || x.respirator_model === null ? null : String(x.respirator_model)
-    }
+    group by 1, 2, 3, 4, 5`)
+  const perModel = [
+    ...canonical.flatMap(x => CANONICAL_MOVEMENTS.map((movement, i) => ({ x, movement, tests: int(x[`t${i}`]), limiting: int(x[`l${i}`]), shareSum: Number(x[`s${i}`] ?? 0) }))),
+    ...custom.map(x => ({ x, movement: String(x.movement), tests: int(x.tests), limiting: int(x.limiting), shareSum: Number(x.share_sum) }))
+  ].filter(g => g.tests > 0)
+  const all = new Map<string, { protocolKey: string, movement: string, tests: number, limiting: number, shareSum: number }>()
+  for (const g of perModel) {
+    const key = `${String(g.x.protocol_key)}\u0000${g.movement}`
+    const sum = all.get(key) ?? { protocolKey: String(g.x.protocol_key), movement: g.movement, tests: 0, limiting: 0, shareSum: 0 }
+    all.set(key, { ...sum, tests: sum.tests + g.tests, limiting: sum.limiting + g.limiting, shareSum: sum.shareSum + g.shareSum })
   }
-  const out = [
-    ...canonical.flatMap(x => CANONICAL_MOVEMENTS.map((movement, i) => ({ ...head(x), movement, tests: int(x[`t${i}`]), limiting: int(x[`l${i}`]), meanShare: Number(x[`s${i}`]) })).filter(row => row.tests > 0)),
-    ...custom.map(x => ({ ...head(x), movement: String(x.movement), tests: int(x.tests), limiting: int(x.limiting), meanShare: Number(x.mean_share) }))
+  const out: ExerciseRow[] = [
+    ...[...all.values()].map(a => ({ protocolKey: a.protocolKey, respiratorModelId: null, make: null, model: null, movement: a.movement, tests: a.tests, limiting: a.limiting, meanShare: a.shareSum / a.tests })),
+    ...perModel.map(g => ({
+      protocolKey: String(g.x.protocol_key), respiratorModelId: String(g.x.respirator_model_id), make: String(g.x.respirator_make), model: String(g.x.respirator_model),
+      movement: g.movement, tests: g.tests, limiting: g.limiting, meanShare: g.shareSum / g.tests
+    }))
   ]
   const cmp = (a: string | null, b: string | null) => ((a ?? '') < (b ?? '') ? -1 : (a ?? '') > (b ?? '') ? 1 : 0)
   // As before: by protocol, the all-models rows first, then by make, model and movement.
