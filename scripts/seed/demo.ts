@@ -8,6 +8,7 @@ import { seedOversight } from './oversight'
 import { hashPassword } from './hash'
 import { seedEquipment } from './equipment'
 import { seedInsights } from './insights'
+import { rebuildInsightFacts } from '../../server/database/insight-facts'
 
 export async function seedDemo(db: SeedDb, onProgress: (text: string) => void = () => {}): Promise<SeededOrganization[]> {
   const passwordHash = await hashPassword(DEMO_PASSWORD)
@@ -39,5 +40,7 @@ export async function seedDemo(db: SeedDb, onProgress: (text: string) => void = 
   onProgress('Exposure assessments')
   await seedAssessments(db, seeded)
   await seedOversight(db, seeded)
+  onProgress('Insights summary')
+  await rebuildInsightFacts(db)
   return seeded
 }

@@ -1,57 +1,29 @@
 import { sql } from 'drizzle-orm'
-import type { SQL } from 'drizzle-orm'
+import { CANONICAL_MOVEMENTS } from '../../shared/utils/compute/movements'
 import type { InsightFilters } from '../../shared/utils/insight-schemas'
-import { DRIFT_DROP_FRACTION, DRIFT_MIN_TESTS } from '../../shared/utils/insight-schemas'
+import { checkLocalDayOf, factScope, firstAttemptOf, int, localDayOf, num, rows } from './insight-scope'
+import type { SqlRunner } from './insight-scope'
 
-// The insights queries, plain TypeScript so the benchmark runs exactly the same SQL.
-// Insights aggregate in PostgreSQL: each panel is one query over the current finished revisions
-// (status 'finished': superseded corrections and withdrawn results are left out), grouped in the
-// database so the server never loads every test.
+export { driftingPeople } from './insight-drift'
 
-/** Anything that runs raw SQL: the app's pool, a transaction, or the benchmark's own connection. */
-export interface SqlRunner {
-  execute(query: SQL): Promise<{ rows: unknown[] }>
-}
-
-/** The WHERE of every panel: the caller's organization, current finished results, the filters. */
-export function insightScope(organizationId: string, f: InsightFilters, opts: { ignoreTester?: boolean } = {}): SQL {
-  const parts: SQL[] = [
-    sql`ft.organization_id = ${organizationId}`,
-    sql`ft.status = 'finished'`,
-    sql`ft.passed is not null`
-  ]
-  if (f.siteId) parts.push(sql`ft.site_id = ${f.siteId}`)
-  if (f.from) parts.push(sql`ft.performed_at >= (${f.from}::date::timestamp at time zone 'UTC')`)
-  if (f.to) parts.push(sql`ft.performed_at < ((${f.to}::date + 1)::timestamp at time zone 'UTC')`)
-  if (f.protocolKey) parts.push(sql`ft.protocol_key = ${f.protocolKey}`)
-  if (f.respiratorModelId) parts.push(sql`ft.respirator_model_id = ${f.respiratorModelId}`)
-  if (f.respiratorSize) parts.push(sql`ft.respirator_size = ${f.respiratorSize}`)
-  if (f.testerUserId && !opts.ignoreTester) parts.push(sql`ft.tester_user_id = ${f.testerUserId}`)
-  return sql.join(parts, sql` and `)
-}
-
-async function rows<T>(db: SqlRunner, query: SQL): Promise<T[]> {
-  const result = await db.execute(query)
-  return result.rows as T[]
-}
-
-const int = (v: unknown) => Number(v ?? 0)
-const num = (v: unknown) => (v === null || v === undefined ? null : Number(v))
+// The insights panels, each one query over the summary of current finished results
+// (insight_results, kept by insight-facts.ts), grouped in PostgreSQL so the server never loads
+// every test. insight-raw.ts works the same numbers out from the raw rows; a test holds them equal.
 
 /** Pass rates by month or quarter (site time): all attempts and first attempts. */
 export async function passRatesByPeriod(db: SqlRunner, organizationId: string, f: InsightFilters) {
   const unit = f.bucket === 'quarter' ? sql.raw(`'quarter'`) : sql.raw(`'month'`)
   const r = await rows<Record<string, unknown>>(db, sql`
     with s as (
-      select ft.performed_at, ft.passed, st.time_zone,
-        row_number() over (partition by ft.person_id, ft.respirator_model_id order by ft.performed_at, ft.id) = 1 as first_attempt
-      from fit_tests ft join sites st on st.id = ft.site_id
-      where ${insightScope(organizationId, f)}
+      select date_trunc(${unit}, ${localDayOf}::timestamp) as period, f.passed, ${firstAttemptOf(f)} as first_attempt
+      from insight_results f join sites st on st.id = f.site_id
+      where ${factScope(organizationId, f)}
     )
-    select to_char(date_trunc(${unit}, performed_at at time zone time_zone), 'YYYY-MM-DD') as period,
-      count(*) as tests, count(*) filter (where passed) as passed,
-      count(*) filter (where first_attempt) as first_tests, count(*) filter (where first_attempt and passed) as first_passed
-    from s group by 1 order by 1`)
+    select to_char(period, 'YYYY-MM-DD') as period, tests, passed, first_tests, first_passed from (
+      select period, count(*) as tests, count(*) filter (where passed) as passed,
+        count(*) filter (where first_attempt) as first_tests, count(*) filter (where first_attempt and passed) as first_passed
+      from s group by 1
+    ) g order by g.period`)
   return r.map(x => ({ period: String(x.period), tests: int(x.tests), passed: int(x.passed), firstTests: int(x.first_tests), firstPassed: int(x.first_passed) }))
 }
 
@@ -59,11 +31,9 @@ export async function passRatesByPeriod(db: SqlRunner, organizationId: string, f
 export async function modelSummaries(db: SqlRunner, organizationId: string, f: InsightFilters) {
   const r = await rows<Record<string, unknown>>(db, sql`
     with s as (
-      select ft.respirator_model_id, ft.respirator_make, ft.respirator_model, ft.respirator_size, ft.passed,
-        ft.overall_is_lower_bound,
-        case when ft.overall_fit_factor > 0 then ln(ft.overall_fit_factor) end as ln_ff,
-        row_number() over (partition by ft.person_id, ft.respirator_model_id order by ft.performed_at, ft.id) = 1 as first_attempt
-      from fit_tests ft where ${insightScope(organizationId, f)}
+      select f.respirator_model_id, f.respirator_make, f.respirator_model, f.respirator_size, f.passed, f.overall_is_lower_bound,
+        f.ln_fit_factor as ln_ff, ${firstAttemptOf(f)} as first_attempt
+      from insight_results f where ${factScope(organizationId, f)}
     )
     select respirator_model_id, respirator_make, respirator_model, respirator_size,
       count(*) as tests, count(*) filter (where passed) as passed,
@@ -92,167 +62,87 @@ export async function modelSummaries(db: SqlRunner, organizationId: string, f: I
   }))
 }
 
+// Per movement: tests that include it, tests it limits, and the sum of its shares of the penetration.
+const canonicalColumns = sql.raw(CANONICAL_MOVEMENTS.map((m, i) =>
+  `count(f.movement_shares[${i + 1}]) as t${i}, count(*) filter (where f.limiting_movement = '${m}') as l${i}, sum(f.movement_shares[${i + 1}]) as s${i}`).join(',\n      '))
+
+interface ExerciseRow { protocolKey: string, respiratorModelId: string | null, make: string | null, model: string | null, movement: string, tests: number, limiting: number, meanShare: number }
+
 /**
  * Which exercise breaks the seal: per protocol (and per protocol and model), how often each
  * movement is the limiting one and its mean share of the penetration. Exercises of one movement
- * within a test (normal breathing at start and end) add their shares.
+ * within a test (normal breathing at start and end) add their shares. One pass over the results
+ * groups by protocol and model, the canonical movements as columns (custom protocols' movements
+ * from their map); the all-models rows are those groups added up.
  */
-export async function exerciseSummaries(db: SqlRunner, organizationId: string, f: InsightFilters) {
-  const r = await rows<Record<string, unknown>>(db, sql`
-    with per_test as (
-      select ft.protocol_key, ft.respirator_model_id, ft.respirator_make, ft.respirator_model, e.movement,
-        sum(e.penetration_share) as share, bool_or(e.is_limiting) as limiting
-      from fit_test_exercise_results e join fit_tests ft on ft.id = e.fit_test_id
-      where e.organization_id = ${organizationId} and ${insightScope(organizationId, f)}
-      group by e.fit_test_id, ft.protocol_key, ft.respirator_model_id, ft.respirator_make, ft.respirator_model, e.movement
-    )
-    select protocol_key, respirator_model_id, respirator_make, respirator_model, movement,
-      count(*) as tests, count(*) filter (where limiting) as limiting, avg(share) as mean_share,
-      grouping(respirator_model_id) as all_models
-    from per_test
-    group by grouping sets ((protocol_key, movement), (protocol_key, respirator_model_id, respirator_make, respirator_model, movement))
-    order by protocol_key, all_models desc, respirator_make, respirator_model, movement`)
-  return r.map(x => ({
-    protocolKey: String(x.protocol_key),
-    respiratorModelId: x.all_models === 1 || x.all_models === '1' ? null : String(x.respirator_model_id),
-    make: x.respirator_make === null ? null : String(x.respirator_make),
-    model: x.respirator_model === null ? null : String(x.respirator_model),
-    movement: String(x.movement),
-    tests: int(x.tests),
-    limiting: int(x.limiting),
-    meanShare: Number(x.mean_share)
-  }))
-}
-
-/**
- * Whose fit is drifting: for each person with three or more tests on one model, the Theil–Sen
- * slope of ln(overall FF) against time in years (Sen 1968) — the median of pairwise slopes,
- * computed in SQL — and the flags of assessDrift (shared/utils/compute/insight-stats.ts).
- */
-export async function driftingPeople(db: SqlRunner, organizationId: string, f: InsightFilters, limit = 100) {
-  const r = await rows<Record<string, unknown>>(db, sql`
-    with pts as (
-      select ft.person_id, ft.respirator_model_id, ft.id, ft.performed_at, ft.due_on, ft.pass_level,
-        extract(epoch from ft.performed_at) / 31557600.0 as t, ln(ft.overall_fit_factor) as y,
-        count(*) over (partition by ft.person_id, ft.respirator_model_id) as n,
-        row_number() over (partition by ft.person_id, ft.respirator_model_id order by ft.performed_at desc, ft.id desc) as latest_rank
-      from fit_tests ft
-      where ${insightScope(organizationId, f)} and ft.overall_fit_factor > 0
-    ),
-    groups as (select * from pts where n >= ${DRIFT_MIN_TESTS}),
-    slopes as (
-      select a.person_id, a.respirator_model_id, percentile_cont(0.5) within group (order by (b.y - a.y) / (b.t - a.t)) as slope
-      from groups a join groups b on b.person_id = a.person_id and b.respirator_model_id = a.respirator_model_id and b.t > a.t
-      group by 1, 2
-    ),
-    fits as (
-      select g.person_id, g.respirator_model_id, s.slope,
-        percentile_cont(0.5) within group (order by g.y - s.slope * g.t) as intercept,
-        percentile_cont(0.5) within group (order by g.y) as median_y,
-        count(*) as tests,
-        array_agg(exp(g.y) order by g.t) as series,
-        array_agg(to_char(g.performed_at at time zone 'UTC', 'YYYY-MM-DD') order by g.t) as dates
-      from groups g join slopes s using (person_id, respirator_model_id)
-      group by 1, 2, 3
-    ),
-    judged as (
-      select fits.*, l.y as latest_y, l.pass_level, l.id as latest_id,
-        extract(epoch from coalesce(l.due_on::timestamp at time zone 'UTC', l.performed_at)) / 31557600.0 as due_t,
-        coalesce(l.due_on, (l.performed_at at time zone 'UTC')::date) as next_due_on
-      from fits join groups l on l.person_id = fits.person_id and l.respirator_model_id = fits.respirator_model_id and l.latest_rank = 1
-    ),
-    flagged as (
-      select judged.*, exp(intercept + slope * due_t) as predicted_at_due,
-        exp(latest_y) < ${DRIFT_DROP_FRACTION} * exp(median_y) as below_median,
-        (slope < 0 and exp(intercept + slope * due_t) < pass_level) as predicts_fail
-      from judged
-    )
-    select flagged.*, p.full_name, p.employee_number, ft.respirator_make, ft.respirator_model, ft.respirator_size,
-      count(*) over () as candidates
-    from flagged
-    join people p on p.id = flagged.person_id
-    join fit_tests ft on ft.id = flagged.latest_id
-    where below_median or predicts_fail
-    order by slope asc
-    limit ${limit}`)
-  const [candidates] = await rows<{ n: unknown }>(db, sql`
-    select count(*) as n from (select 1 from fit_tests ft where ${insightScope(organizationId, f)} and ft.overall_fit_factor > 0
-      group by ft.person_id, ft.respirator_model_id having count(*) >= ${DRIFT_MIN_TESTS}) g`)
-  return {
-    candidates: int(candidates?.n),
-    people: r.map(x => ({
-      personId: String(x.person_id),
-      personName: String(x.full_name),
-      employeeNumber: x.employee_number === null ? null : String(x.employee_number),
-      respiratorModelId: String(x.respirator_model_id),
-      make: String(x.respirator_make),
-      model: String(x.respirator_model),
-      size: String(x.respirator_size),
-      tests: int(x.tests),
-      slopePerYear: Number(x.slope),
-      latestFitFactor: Math.exp(Number(x.latest_y)),
-      medianFitFactor: Math.exp(Number(x.median_y)),
-      predictedAtDue: Number(x.predicted_at_due),
-      nextDueOn: String(x.next_due_on instanceof Date ? x.next_due_on.toISOString().slice(0, 10) : x.next_due_on),
-      passLevel: Number(x.pass_level),
-      latestBelowOwnMedian: Boolean(x.below_median),
-      predictsFailBeforeDue: Boolean(x.predicts_fail),
-      series: (x.series as unknown[]).map(Number),
-      dates: (x.dates as unknown[]).map(String)
-    }))
+export async function exerciseSummaries(db: SqlRunner, organizationId: string, f: InsightFilters): Promise<ExerciseRow[]> {
+  const canonical = await rows<Record<string, unknown>>(db, sql`
+    select f.protocol_key, f.respirator_model_id, f.respirator_make, f.respirator_model, ${canonicalColumns}
+    from insight_results f
+    where ${factScope(organizationId, f)} and f.movement_shares is not null
+    group by 1, 2, 3, 4`)
+  const custom = await rows<Record<string, unknown>>(db, sql`
+    select f.protocol_key, f.respirator_model_id, f.respirator_make, f.respirator_model, o.key as movement,
+      count(*) as tests, count(*) filter (where f.limiting_movement = o.key) as limiting, sum(o.value::float8) as share_sum
+    from insight_results f cross join lateral jsonb_each_text(f.other_shares) o
+    where ${factScope(organizationId, f)} and f.other_shares is not null
+    group by 1, 2, 3, 4, 5`)
+  const perModel = [
+    ...canonical.flatMap(x => CANONICAL_MOVEMENTS.map((movement, i) => ({ x, movement, tests: int(x[`t${i}`]), limiting: int(x[`l${i}`]), shareSum: Number(x[`s${i}`] ?? 0) }))),
+    ...custom.map(x => ({ x, movement: String(x.movement), tests: int(x.tests), limiting: int(x.limiting), shareSum: Number(x.share_sum) }))
+  ].filter(g => g.tests > 0)
+  const all = new Map<string, { protocolKey: string, movement: string, tests: number, limiting: number, shareSum: number }>()
+  for (const g of perModel) {
+    const key = `${String(g.x.protocol_key)}\u0000${g.movement}`
+    const sum = all.get(key) ?? { protocolKey: String(g.x.protocol_key), movement: g.movement, tests: 0, limiting: 0, shareSum: 0 }
+    all.set(key, { ...sum, tests: sum.tests + g.tests, limiting: sum.limiting + g.limiting, shareSum: sum.shareSum + g.shareSum })
   }
+  const out: ExerciseRow[] = [
+    ...[...all.values()].map(a => ({ protocolKey: a.protocolKey, respiratorModelId: null, make: null, model: null, movement: a.movement, tests: a.tests, limiting: a.limiting, meanShare: a.shareSum / a.tests })),
+    ...perModel.map(g => ({
+      protocolKey: String(g.x.protocol_key), respiratorModelId: String(g.x.respirator_model_id), make: String(g.x.respirator_make), model: String(g.x.respirator_model),
+      movement: g.movement, tests: g.tests, limiting: g.limiting, meanShare: g.shareSum / g.tests
+    }))
+  ]
+  const cmp = (a: string | null, b: string | null) => ((a ?? '') < (b ?? '') ? -1 : (a ?? '') > (b ?? '') ? 1 : 0)
+  // As before: by protocol, the all-models rows first, then by make, model and movement.
+  return out.sort((a, b) => cmp(a.protocolKey, b.protocolKey) || Number(a.respiratorModelId !== null) - Number(b.respiratorModelId !== null)
+    || cmp(a.make, b.make) || cmp(a.model, b.model) || cmp(a.movement, b.movement))
 }
 
 /** Each tester's results, and the organization's rate over the same filters (tester filter aside). */
 export async function testerSummaries(db: SqlRunner, organizationId: string, f: InsightFilters) {
   const r = await rows<Record<string, unknown>>(db, sql`
-    select ft.tester_user_id, u.display_name, count(*) as tests, count(*) filter (where ft.passed) as passed
-    from fit_tests ft join users u on u.id = ft.tester_user_id
-    where ${insightScope(organizationId, f, { ignoreTester: true })}
+    select f.tester_user_id, u.display_name, count(*) as tests, count(*) filter (where f.passed) as passed
+    from insight_results f join users u on u.id = f.tester_user_id
+    where ${factScope(organizationId, f, { ignoreTester: true })}
     group by 1, 2 order by 2`)
   return r.map(x => ({ testerUserId: String(x.tester_user_id), testerName: String(x.display_name), tests: int(x.tests), passed: int(x.passed) }))
 }
 
 /**
- * Share of results covered by a readiness check, by counter and month. The same rule as
- * shared/utils/coverage.ts decideCoverage for fit tests: the last check of the same counter that
- * ended (passed or failed) at or before the result, on the same calendar day in the result's site
- * time zone, must have passed; and the counter's calibration must not be past due that day.
- * One ordered pass over checks and results per counter (window functions), not a lookup per row.
+ * Share of results covered by a readiness check, by counter and month: the last check of the
+ * same counter that ended at or before the result (kept in the summary) passed on the same
+ * calendar day in the result's site time zone, and the counter's calibration was not past due
+ * that day — the rule of shared/utils/coverage.ts decideCoverage.
  */
 export async function coverageSummaries(db: SqlRunner, organizationId: string, f: InsightFilters) {
   const r = await rows<Record<string, unknown>>(db, sql`
-    with results as (
-      select ft.id, ft.counter_id, ft.performed_at, st.time_zone
-      from fit_tests ft join sites st on st.id = ft.site_id
-      where ${insightScope(organizationId, f)} and ft.counter_id is not null
+    with s as (
+      select f.counter_id, f.last_check_passed, ${checkLocalDayOf} as check_day, ${localDayOf} as day
+      from insight_results f join sites st on st.id = f.site_id
+      where ${factScope(organizationId, f)} and f.counter_id is not null
     ),
-    events as (
-      select rc.counter_id, rc.completed_at as at, 0 as kind, rc.status, null::uuid as result_id, null::text as time_zone
-      from readiness_checks rc
-      where rc.organization_id = ${organizationId} and rc.status in ('passed', 'failed') and rc.completed_at is not null
-        and rc.counter_id in (select distinct counter_id from results)
-      union all
-      select counter_id, performed_at, 1, null, id, time_zone from results
-    ),
-    numbered as (
-      select *, count(*) filter (where kind = 0) over (partition by counter_id order by at, kind rows unbounded preceding) as grp
-      from events
-    ),
-    marked as (
-      select *, first_value(status) over w as last_status, first_value(at) over w as last_at
-      from numbered window w as (partition by counter_id, grp order by kind, at)
+    g as (
+      select s.counter_id, date_trunc('month', s.day::timestamp) as period, count(*) as tests,
+        count(*) filter (where s.last_check_passed and s.check_day = s.day and (c.calibration_due_on is null or s.day <= c.calibration_due_on)) as covered
+      from s join counters c on c.id = s.counter_id
+      group by 1, 2
     )
-    select c.id as counter_id, c.serial_number,
-      to_char(date_trunc('month', m.at at time zone m.time_zone), 'YYYY-MM-DD') as period,
-      count(*) as tests,
-      count(*) filter (where m.last_status = 'passed'
-        and (m.last_at at time zone m.time_zone)::date = (m.at at time zone m.time_zone)::date
-        and (c.calibration_due_on is null or (m.at at time zone m.time_zone)::date <= c.calibration_due_on)) as covered
-    from marked m join counters c on c.id = m.counter_id
-    where m.kind = 1
-    group by 1, 2, 3 order by 2, 3`)
-  const [noCounter] = await rows<{ n: unknown }>(db, sql`select count(*) as n from fit_tests ft where ${insightScope(organizationId, f)} and ft.counter_id is null`)
+    select g.counter_id, c.serial_number, to_char(g.period, 'YYYY-MM-DD') as period, g.tests, g.covered
+    from g join counters c on c.id = g.counter_id
+    order by c.serial_number, g.period`)
+  const [noCounter] = await rows<{ n: unknown }>(db, sql`select count(*) as n from insight_results f where ${factScope(organizationId, f)} and f.counter_id is null`)
   return {
     withoutCounter: int(noCounter?.n),
     rows: r.map(x => ({ counterId: String(x.counter_id), counterSerial: String(x.serial_number), period: String(x.period), tests: int(x.tests), covered: int(x.covered) }))

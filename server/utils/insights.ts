@@ -3,11 +3,19 @@ import { exerciseInsightRows } from '#shared/utils/insight-rows'
 import type { FitTestResult } from '#shared/utils/compute'
 import { evaluateFitTest } from '#shared/utils/fit-test-evaluate'
 import type { InsightFilters } from '#shared/utils/insight-schemas'
+import { refreshInsightFacts } from '../database/insight-facts'
 import * as queries from '../database/insight-queries'
+import { insightScope as rawScope } from '../database/insight-scope'
 
-export const insightScope = queries.insightScope
+export const insightScope = rawScope
 
 type Tx = Parameters<Parameters<Database['transaction']>[0]>[0]
+
+/**
+ * Keeps the insights summary in step with a record after it was finished, corrected or withdrawn:
+ * one call inside the writing transaction, after the status and exercise rows are written.
+ */
+export const refreshInsights = (tx: Tx, organizationId: string, recordId: string) => refreshInsightFacts(tx, organizationId, [recordId])
 
 export const passRatesByPeriod = (organizationId: string, f: InsightFilters) => queries.passRatesByPeriod(useDb(), organizationId, f)
 export const modelSummaries = (organizationId: string, f: InsightFilters) => queries.modelSummaries(useDb(), organizationId, f)

@@ -45,6 +45,12 @@ beforeAll(async () => {
   people = { drifting: program.personId, steady: extra[0]!.id, leaky: extra[1]!.id }
   tester = await signedIn(org.users.tester.email, org.users.tester.password)
   reviewer = await signedIn(org.users.reviewer.email, org.users.reviewer.password)
+  // A passing readiness check at 11:00 New York time on 2026-02-03 covers both of that day's tests;
+  // it is recorded before them, as the app records checks when they are done.
+  await db.insert(schema.readinessChecks).values({
+    organizationId: org.id, templateName: 'Fixture counter check', counterId: program.counterId, siteId: program.siteId,
+    steps: [], status: 'passed', startedAt: new Date('2026-02-03T15:50:00Z'), completedAt: new Date('2026-02-03T16:00:00Z')
+  })
   // Drifting: ln FF falls by about 1 a year on the half mask (all pass today).
   await finishTest('drifting', 'half', 'M', '2023-01-10T17:00:00Z', flat(3000))
   await finishTest('drifting', 'half', 'M', '2024-01-10T17:00:00Z', flat(1000))
@@ -56,11 +62,6 @@ beforeAll(async () => {
   // Leaky in bending over: [1000×5, 10, 1000] → 66.04, a fail limited by bending.
   await finishTest('leaky', 'half', 'L', '2026-02-03T16:00:00Z', [1000, 1000, 1000, 1000, 1000, 10, 1000])
   await finishTest('leaky', 'half', 'L', '2026-02-03T17:00:00Z', [1000, 1000, 800, 1000, 1000, 1000, 1000])
-  // A passing readiness check at 11:00 New York time on 2026-02-03 covers both of that day's tests.
-  await db.insert(schema.readinessChecks).values({
-    organizationId: org.id, templateName: 'Fixture counter check', counterId: program.counterId, siteId: program.siteId,
-    steps: [], status: 'passed', startedAt: new Date('2026-02-03T15:50:00Z'), completedAt: new Date('2026-02-03T16:00:00Z')
-  })
 })
 afterAll(closeTestDb)
 

@@ -38,6 +38,7 @@ export default defineEventHandler(async (event) => {
       .where(and(eq(t.recordId, row.recordId), ne(t.id, id), eq(t.status, 'finished')))
     if (card.issue) await ensureCard(tx, caller.organizationId, row)
     await recordExerciseResults(tx, caller.organizationId, id, evaluation?.result)
+    await refreshInsights(tx, caller.organizationId, row.recordId)
     await writeAudit(tx, caller, { entityType: 'fit-test', entityId: id, action: 'finished', after: { revision: row.revision, overallFitFactor: stored.overallFitFactor, passed: stored.passed, passLevel: stored.passLevel, dueOn: stored.dueOn } })
   })
   return fitTestView(caller, id)

@@ -23,6 +23,7 @@ export default defineEventHandler(async (event) => {
       throw httpError(409, 'Only a finished, current record can be withdrawn.')
     }
     await tx.update(t).set({ status: 'withdrawn', withdrawnReason: reason }).where(and(eq(t.id, id), eq(t.status, 'finished')))
+    await refreshInsights(tx, caller.organizationId, recordId)
     await writeAudit(tx, caller, { entityType: 'fit-test', entityId: id, action: 'withdrawn', after: { reason } })
   })
   return fitTestView(caller, await findFitTest(caller.organizationId, id))

@@ -1,0 +1,76 @@
+import { sql } from 'drizzle-orm'
+import type { SQL } from 'drizzle-orm'
+import type { InsightFilters } from '../../shared/utils/insight-schemas'
+
+// What every insights query shares. Plain TypeScript (no Nitro), so the benchmark, the demo seed
+// and the admin's rebuild script run exactly the SQL the routes run.
+
+/** Anything that runs raw SQL: the app's pool, a transaction, or a script's own connection. */
+export interface SqlRunner {
+  execute(query: SQL): Promise<{ rows: unknown[] }>
+}
+
+export async function rows<T>(db: SqlRunner, query: SQL): Promise<T[]> {
+  const result = await db.execute(query)
+  return result.rows as T[]
+}
+
+export const int = (v: unknown) => Number(v ?? 0)
+export const num = (v: unknown) => (v === null || v === undefined ? null : Number(v))
+
+/**
+ * The WHERE of every panel over the summary `insight_results f`: the caller's organization and the
+ * filters. The summary holds only current finished results with a verdict.
+ */
+export function factScope(organizationId: string, f: InsightFilters, opts: { ignoreTester?: boolean } = {}): SQL {
+  const parts: SQL[] = [sql`f.organization_id = ${organizationId}`]
+  if (f.siteId) parts.push(sql`f.site_id = ${f.siteId}`)
+  if (f.from) parts.push(sql`f.performed_at >= (${f.from}::date::timestamp at time zone 'UTC')`)
+  if (f.to) parts.push(sql`f.performed_at < ((${f.to}::date + 1)::timestamp at time zone 'UTC')`)
+  if (f.protocolKey) parts.push(sql`f.protocol_key = ${f.protocolKey}`)
+  if (f.respiratorModelId) parts.push(sql`f.respirator_model_id = ${f.respiratorModelId}`)
+  if (f.respiratorSize) parts.push(sql`f.respirator_size = ${f.respiratorSize}`)
+  if (f.testerUserId && !opts.ignoreTester) parts.push(sql`f.tester_user_id = ${f.testerUserId}`)
+  return sql.join(parts, sql` and `)
+}
+
+/**
+ * Whether a person-and-model series is whole under these filters: a model filter keeps or drops
+ * whole series and an end date only cuts off their later tests, so a first attempt stays first and
+ * the stored per-series results (first attempts, drift) hold. Any other filter can remove a
+ * series' earlier tests, so the panel works them out again from the filtered rows.
+ */
+export function keepsWholeSeries(f: InsightFilters): boolean {
+  return !f.siteId && !f.from && !f.protocolKey && !f.respiratorSize && !f.testerUserId
+}
+
+/**
+ * The calendar day of a summary row `f` (or of its last readiness check) in the time zone of its
+ * site `st`: stored when the row was made, worked out again if the site's zone changed since.
+ */
+export const localDayOf = sql`(case when f.time_zone = st.time_zone then f.local_day else (f.performed_at at time zone st.time_zone)::date end)`
+export const checkLocalDayOf = sql`(case when f.time_zone = st.time_zone then f.last_check_local_day else (f.last_check_at at time zone st.time_zone)::date end)`
+
+/** A person's first result on a model among the rows in scope, as SQL over `f`. */
+export function firstAttemptOf(f: InsightFilters): SQL {
+  return keepsWholeSeries(f)
+    ? sql`f.first_attempt`
+    : sql`row_number() over (partition by f.person_id, f.respirator_model_id order by f.performed_at, f.fit_test_id) = 1`
+}
+
+/** The same WHERE over the raw revisions `fit_tests ft`: current finished results with a verdict. */
+export function insightScope(organizationId: string, f: InsightFilters, opts: { ignoreTester?: boolean } = {}): SQL {
+  const parts: SQL[] = [
+    sql`ft.organization_id = ${organizationId}`,
+    sql`ft.status = 'finished'`,
+    sql`ft.passed is not null`
+  ]
+  if (f.siteId) parts.push(sql`ft.site_id = ${f.siteId}`)
+  if (f.from) parts.push(sql`ft.performed_at >= (${f.from}::date::timestamp at time zone 'UTC')`)
+  if (f.to) parts.push(sql`ft.performed_at < ((${f.to}::date + 1)::timestamp at time zone 'UTC')`)
+  if (f.protocolKey) parts.push(sql`ft.protocol_key = ${f.protocolKey}`)
+  if (f.respiratorModelId) parts.push(sql`ft.respirator_model_id = ${f.respiratorModelId}`)
+  if (f.respiratorSize) parts.push(sql`ft.respirator_size = ${f.respiratorSize}`)
+  if (f.testerUserId && !opts.ignoreTester) parts.push(sql`ft.tester_user_id = ${f.testerUserId}`)
+  return sql.join(parts, sql` and `)
+}
