@@ -1,7 +1,9 @@
 /**
  * After a move to another page, keyboard and screen-reader users land on the new page's heading
  * (the route announcer reads the title out). The first load keeps the browser's own start, and a
- * change of query on the same page (a filter, the pager) leaves focus where the person is typing.
+ * change of query on the same page (a filter, the pager) leaves focus where the person is typing,
+ * and focus the new page already placed itself (a started test's first field, a finished test's
+ * verdict — see useFocusRequest) is left where it was put.
  */
 export default defineNuxtPlugin((nuxtApp) => {
   const router = useRouter()
@@ -13,6 +15,8 @@ export default defineNuxtPlugin((nuxtApp) => {
     requestAnimationFrame(() => {
       const heading = document.querySelector<HTMLElement>('#main h1')
       if (!heading) return
+      const active = document.activeElement
+      if (active && active !== document.body && active !== heading && heading.closest('#main')?.contains(active)) return
       if (!heading.hasAttribute('tabindex')) heading.setAttribute('tabindex', '-1')
       heading.focus()
     })

@@ -11,6 +11,9 @@ const COMPRESSIBLE = /^(text\/|application\/(json|javascript|xml)|image\/svg\+xm
 export default defineNitroPlugin((nitro) => {
   nitro.hooks.hook('beforeResponse', async (event, response) => {
     if (event.method === 'HEAD' || getResponseHeader(event, 'content-encoding')) return
+    // The error page is rendered by an internal request whose body the error handler reads as
+    // text and sends on: compressing it here would send gzip bytes as if they were HTML.
+    if (event.path.startsWith('/__nuxt_error')) return
     const body = response.body
     const type = String(getResponseHeader(event, 'content-type') ?? (body !== null && typeof body === 'object' && !(body instanceof Uint8Array) ? 'application/json' : ''))
     if (!COMPRESSIBLE.test(type)) return

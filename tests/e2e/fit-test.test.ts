@@ -73,7 +73,7 @@ describe('a tester records a standard-protocol test by keyboard', () => {
     const due = new Date()
     due.setUTCFullYear(due.getUTCFullYear() + 1)
     expect(text).toContain(String(due.getUTCFullYear()))
-    expect(text).toMatch(new RegExp(`\\d{1,2} ${due.toLocaleString('en-GB', { month: 'long', timeZone: 'UTC' })} ${due.getUTCFullYear()}`))
+    expect(text).toMatch(new RegExp(`\\d{1,2} ${due.toLocaleString('en-GB', { month: 'short', timeZone: 'UTC' })} ${due.getUTCFullYear()}`))
 
     await page.getByTestId('verify-link').click()
     await page.getByTestId('card-state').waitFor()
