@@ -8,7 +8,8 @@ export default withNuxt(
   {
     rules: {
       'vue/multi-word-component-names': 'off',
-      'vue/max-attributes-per-line': 'off',
+      // Up to three short attributes on one line; once an element wraps, one attribute per line.
+      'vue/max-attributes-per-line': ['error', { singleline: { max: 3 }, multiline: { max: 1 } }],
       'vue/singleline-html-element-content-newline': 'off'
     }
   },
