@@ -19,6 +19,8 @@ const messages = file && existsSync(file)
 const smtp = new SMTPServer({
   authOptional: true,
   disabledCommands: ['STARTTLS'],
+  // Loopback only: a reverse DNS lookup of 127.0.0.1 can stall each connection on a machine without a resolver.
+  disableReverseLookup: true,
   banner: 'Sealwright local mail catcher',
   onData(stream, session, callback) {
     simpleParser(stream)

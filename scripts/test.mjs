@@ -82,6 +82,10 @@ try {
     }
   }) === 0)
 
+  if (!testsOk) {
+    // What the app and the mail catcher printed last: the server side of a failing test.
+    for (const [name, service] of [['app', app], ['mail', mail]]) log.plain(`\nLast output of the ${name} under test:\n${service.tail() || '(nothing)'}`)
+  }
   exitCode = lintOk && typesOk && buildOk && testsOk ? 0 : 1
 } catch (error) {
   log.fail(error?.message ?? String(error))

@@ -6,7 +6,8 @@ export function useReminderActions() {
     preview: (personIds: string[]) => $fetch<{ sent: number, results: ReminderResult[] }>('/api/reminders/preview', { method: 'POST', body: { personIds } }),
     async send(personIds: string[]) {
       const reply = await $fetch<{ sent: number, results: ReminderResult[] }>('/api/reminders/send', { method: 'POST', body: { personIds } })
-      await refreshNuxtData('due-list')
+      // The reply is shown at once; the due list catches up behind it.
+      void refreshNuxtData('due-list')
       return reply
     }
   }

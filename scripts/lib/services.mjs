@@ -47,6 +47,8 @@ export async function startService(name, command, args, { env, cwd, ready, timeo
   }
   return {
     child,
+    /** The last 50 lines it printed, for a failure report. */
+    tail: () => out.join('\n'),
     stop: () => new Promise((resolve) => {
       if (exited !== null) return resolve()
       child.once('exit', () => resolve())

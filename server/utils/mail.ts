@@ -4,7 +4,9 @@ import type { Transporter } from 'nodemailer'
 let transporter: Transporter | undefined
 
 function useTransport() {
-  transporter ??= nodemailer.createTransport(useRuntimeConfig().mail.smtpUrl)
+  // Bounded waits: a mail server that stops answering fails the send (logged on the reminder)
+  // instead of holding the request that asked for it.
+  transporter ??= nodemailer.createTransport({ url: useRuntimeConfig().mail.smtpUrl, connectionTimeout: 10_000, greetingTimeout: 10_000, socketTimeout: 20_000 })
   return transporter
 }
 
