@@ -1,5 +1,6 @@
 import { afterAll, beforeAll, describe, expect, it } from 'vitest'
 import { signedIn } from '../support/http'
+import { baseUrl } from '../support/env'
 import type { Client } from '../support/http'
 import { closeTestDb, createOrganization } from '../support/fixtures'
 
@@ -33,5 +34,17 @@ describe('a refusal reaches the browser as written', () => {
     expect(reply.body.message).toContain('—')
     expect(reply.body.message).toContain('\'serialNumber\'')
     expect(reply.body.data.fieldErrors.serialNumber).toBeTruthy()
+  })
+})
+
+describe('an address no route answers', () => {
+  it('gets a JSON 404, signed in or not, never the sign-in page', async () => {
+    for (const path of ['/api/no-such-thing', '/api/people/not-a-route/at-all']) {
+      const anonymous = await fetch(new URL(path, baseUrl), { redirect: 'manual' })
+      expect(anonymous.status).toBe(404)
+      expect(anonymous.headers.get('content-type')).toMatch(/json/)
+      expect((await anonymous.json()).message).toMatch(/no such address/)
+      expect((await tester.get(path)).status).toBe(404)
+    }
   })
 })
