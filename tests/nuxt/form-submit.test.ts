@@ -86,4 +86,3 @@ describe('a readiness step that reads a number', () => {
     expect((card.get('#step-value').element as HTMLInputElement).value).toBe('0.4')
   })
 })
-
