@@ -7,6 +7,7 @@ import { describe, expect, it, vi } from 'vitest'
 import { flushPromises } from '@vue/test-utils'
 import { mountSuspended, registerEndpoint } from '@nuxt/test-utils/runtime'
 import { createError, readBody } from 'h3'
+import { readinessStepSchema } from '#shared/utils/readiness-schemas'
 import ReviewAnswerForm from '~/components/review/ReviewAnswerForm.vue'
 import ReadinessRunnerStep from '~/components/readiness/ReadinessRunnerStep.vue'
 
@@ -56,7 +57,7 @@ describe('a migrated form (the tester\'s answer to a query)', () => {
 })
 
 describe('a readiness step that reads a number', () => {
-  const step = { name: 'Zero count', instruction: 'Fit the zero filter and read the counter.', rule: { kind: 'at-most', max: 1, unit: '/cm³' } } as const
+  const step = readinessStepSchema.parse({ name: 'Zero count', instruction: 'Fit the zero filter and read the counter.', rule: { kind: 'at-most', max: 1, unit: '/cm³' } })
   const props = (save: (value: number | boolean) => Promise<unknown>) => ({ step, index: 0, position: 1, count: 3, lastEntry: null, busy: false, error: '', save })
 
   it('refuses a reading it could not read, beside the field, and saves nothing', async () => {
