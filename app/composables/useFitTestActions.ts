@@ -28,6 +28,17 @@ export function useFitTestActions(id: string, key: string) {
     async startRevision(reason: string) {
       return $fetch<{ id: string }>(`/api/fit-tests/${id}/revisions`, { method: 'POST', body: { reason } })
     },
+    /** Opens a linked draft for a failed result; the same key twice gives the same draft. */
+    async retest(idempotencyKey: string) {
+      const draft = await $fetch<{ id: string }>(`/api/fit-tests/${id}/retest`, { method: 'POST', body: { idempotencyKey } })
+      await refreshNuxtData('fit-test-list')
+      return draft
+    },
+    async discard(reason: string) {
+      const done = await $fetch(`/api/fit-tests/${id}/discard`, { method: 'POST', body: { reason } })
+      await refresh()
+      return done
+    },
     async withdraw(reason: string) {
       const done = await $fetch(`/api/fit-tests/${id}/withdraw`, { method: 'POST', body: { reason } })
       await refresh()
