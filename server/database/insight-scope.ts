@@ -10,6 +10,28 @@ export interface SqlRunner {
   execute(query: SQL): Promise<{ rows: unknown[] }>
 }
 
+/** A runner that can also open a transaction: the app's pool, or a script's drizzle. */
+export interface TransactionalRunner extends SqlRunner {
+  transaction<T>(run: (tx: SqlRunner) => Promise<T>): Promise<T>
+}
+
+/**
+ * Runs one panel's queries in a transaction of their own with enough sort and hash memory
+ * (`work_mem`) that grouping a whole organization's results stays in memory instead of spilling
+ * to disk. SET LOCAL ends with the transaction, so other queries on the same connection keep the
+ * server's defaults.
+ */
+export function insightRead<T>(db: TransactionalRunner, run: (tx: SqlRunner) => Promise<T>): Promise<T> {
+  return db.transaction(async (tx) => {
+    await tx.execute(sql.raw(`set local work_mem = '${INSIGHT_WORK_MEM}'`))
+    return run(tx)
+  })
+}
+export const INSIGHT_WORK_MEM = '32MB'
+
+/** The insight_results column holding a canonical movement's penetration share. */
+export const shareColumn = (movement: string) => `share_${movement.replace(/-/g, '_')}`
+
 export async function rows<T>(db: SqlRunner, query: SQL): Promise<T[]> {
   const result = await db.execute(query)
   return result.rows as T[]

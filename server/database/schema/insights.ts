@@ -49,9 +49,18 @@ export const insightResults = pgTable('insight_results', {
   limitingMovement: text(),
   /**
    * Penetration share of each canonical movement in this test (exercises of one movement added),
-   * in the order of CANONICAL_MOVEMENTS; null where the protocol lacks the movement.
+   * one column per entry of CANONICAL_MOVEMENTS (shared/utils/compute/movements.ts; the SQL names
+   * them through shareColumn in insight-scope.ts); null where the protocol lacks the movement.
+   * Plain columns, not an array, so the exercises panel sums them without unpacking a value per row.
    */
-  movementShares: doublePrecision().array(),
+  shareNormalBreathing: doublePrecision(),
+  shareDeepBreathing: doublePrecision(),
+  shareHeadSideToSide: doublePrecision(),
+  shareHeadUpAndDown: doublePrecision(),
+  shareTalking: doublePrecision(),
+  shareGrimace: doublePrecision(),
+  shareBending: doublePrecision(),
+  shareJogging: doublePrecision(),
   /** Shares of movements outside the canonical list (custom protocols), by movement. */
   otherShares: jsonb().$type<Record<string, number>>()
 }, table => [
