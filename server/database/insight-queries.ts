@@ -1,7 +1,7 @@
 import { sql } from 'drizzle-orm'
 import { CANONICAL_MOVEMENTS } from '../../shared/utils/compute/movements'
 import type { InsightFilters } from '../../shared/utils/insight-schemas'
-import { checkLocalDayOf, factScope, firstAttemptOf, int, localDayOf, num, rows, shareColumn } from './insight-scope'
+import { factScope, firstAttemptOf, int, localDays, num, rows, shareColumn } from './insight-scope'
 import type { SqlRunner } from './insight-scope'
 
 export { driftingPeople } from './insight-drift'
@@ -13,10 +13,11 @@ export { driftingPeople } from './insight-drift'
 /** Pass rates by month or quarter (site time): all attempts and first attempts. */
 export async function passRatesByPeriod(db: SqlRunner, organizationId: string, f: InsightFilters) {
   const unit = f.bucket === 'quarter' ? sql.raw(`'quarter'`) : sql.raw(`'month'`)
+  const local = await localDays(db, organizationId)
   const r = await rows<Record<string, unknown>>(db, sql`
     with s as (
-      select date_trunc(${unit}, ${localDayOf}::timestamp) as period, f.passed, ${firstAttemptOf(f)} as first_attempt
-      from insight_results f join sites st on st.id = f.site_id
+      select date_trunc(${unit}, ${local.day}::timestamp) as period, f.passed, ${firstAttemptOf(f)} as first_attempt
+      from insight_results f ${local.sites}
       where ${factScope(organizationId, f)}
     )
     select to_char(period, 'YYYY-MM-DD') as period, tests, passed, first_tests, first_passed from (
@@ -139,10 +140,11 @@ export async function testerSummaries(db: SqlRunner, organizationId: string, f: 
  */
 export async function coverageSummaries(db: SqlRunner, organizationId: string, f: InsightFilters) {
   // One pass: results without a counter form the group whose counter_id is null.
+  const local = await localDays(db, organizationId)
   const r = await rows<Record<string, unknown>>(db, sql`
     with s as (
-      select f.counter_id, f.last_check_passed, ${checkLocalDayOf} as check_day, ${localDayOf} as day
-      from insight_results f join sites st on st.id = f.site_id
+      select f.counter_id, f.last_check_passed, ${local.checkDay} as check_day, ${local.day} as day
+      from insight_results f ${local.sites}
       where ${factScope(organizationId, f)}
     ),
     g as (

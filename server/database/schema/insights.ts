@@ -66,7 +66,9 @@ export const insightResults = pgTable('insight_results', {
 }, table => [
   index('insight_results_organization_performed_idx').on(table.organizationId, table.performedAt),
   index('insight_results_organization_model_idx').on(table.organizationId, table.respiratorModelId, table.performedAt),
-  index('insight_results_person_model_idx').on(table.organizationId, table.personId, table.respiratorModelId, table.performedAt)
+  index('insight_results_person_model_idx').on(table.organizationId, table.personId, table.respiratorModelId, table.performedAt),
+  // zonesCurrent: is any row's zone no longer its site's?
+  index('insight_results_site_zone_idx').on(table.organizationId, table.siteId, table.timeZone)
 ])
 
 /**
