@@ -12,6 +12,7 @@ import { drizzle } from 'drizzle-orm/node-postgres'
 import pg from 'pg'
 import { rebuildInsightFacts } from '../server/database/insight-facts'
 import * as q from '../server/database/insight-queries'
+import { insightRead } from '../server/database/insight-scope'
 import * as raw from '../server/database/insight-raw'
 import type { InsightFilters } from '../shared/utils/insight-schemas'
 import { applyMigrations, ensureDatabase } from './lib/database.mjs'
@@ -93,7 +94,9 @@ if (Number((existing.rows[0] as { n: number }).n) === 0) {
   await step('analyze', sql`analyze`)
 }
 const summarized = Number((await db.execute(sql`select count(*)::int as n from insight_results`)).rows.map(r => (r as { n: number }).n)[0])
-if (summarized === 0) {
+// A reused database summarized before a migration that added summary columns: build it afresh.
+const unfilled = Number((await db.execute(sql`select count(*)::int as n from insight_results where share_talking is null and other_shares is null`)).rows.map(r => (r as { n: number }).n)[0])
+if (summarized === 0 || unfilled > 0) {
   const started = performance.now()
   const n = await rebuildInsightFacts(db)
   await db.execute(sql`analyze insight_results; analyze insight_drift`)
@@ -111,13 +114,15 @@ const cases: [string, InsightFilters][] = [
   ['one site, last 12 months', { bucket: 'month', siteId, from: lastYear }]
 ]
 type Panels = typeof q | typeof raw
+// The summary panels run as the routes run them: each in its own read transaction (insightRead).
+const read = (m: Panels) => <T>(run: (runner: typeof db) => Promise<T>) => (m === q ? insightRead(db, tx => run(tx as typeof db)) : run(db))
 const panelsOf = (m: Panels): [string, (f: InsightFilters) => Promise<unknown>][] => [
-  ['pass rates', f => m.passRatesByPeriod(db, ORG, f)],
-  ['models and sizes', f => m.modelSummaries(db, ORG, f)],
-  ['exercises', f => m.exerciseSummaries(db, ORG, f)],
-  ['drift', f => m.driftingPeople(db, ORG, f)],
-  ['testers', f => m.testerSummaries(db, ORG, f)],
-  ['coverage', f => m.coverageSummaries(db, ORG, f)]
+  ['pass rates', f => read(m)(r => m.passRatesByPeriod(r, ORG, f))],
+  ['models and sizes', f => read(m)(r => m.modelSummaries(r, ORG, f))],
+  ['exercises', f => read(m)(r => m.exerciseSummaries(r, ORG, f))],
+  ['drift', f => read(m)(r => m.driftingPeople(r, ORG, f))],
+  ['testers', f => read(m)(r => m.testerSummaries(r, ORG, f))],
+  ['coverage', f => read(m)(r => m.coverageSummaries(r, ORG, f))]
 ]
 async function timed(run: () => Promise<unknown>, rounds: number) {
   await run()

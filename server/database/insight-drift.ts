@@ -5,13 +5,19 @@ import { DRIFT_DROP_FRACTION, DRIFT_MIN_TESTS } from '../../shared/utils/insight
 import { factScope, int, keepsWholeSeries, rows } from './insight-scope'
 import type { SqlRunner } from './insight-scope'
 
+/** The fit factors (from ln FF `y`) and dates of a series, in time `t` order, as columns `series` and `dates`. */
+const seriesColumns = (alias: string, y: string, t: string) => sql.raw(
+  `array_agg(exp(${alias}.${y}) order by ${t}) as series, array_agg(to_char(${alias}.performed_at at time zone 'UTC', 'YYYY-MM-DD') order by ${t}) as dates`)
+
 /**
  * Whose fit is drifting, over the summary rows `insight_results f` that `scope` selects: for each
  * person with three or more results on one model, the Theil–Sen slope of ln(overall FF) against
  * time in years (Sen 1968) — the median of pairwise slopes — and the flags of assessDrift
- * (shared/utils/compute/insight-stats.ts). One row per person and model, flagged or not.
+ * (shared/utils/compute/insight-stats.ts). One row per person and model, flagged or not. With
+ * `withSeries` false the fit factors and dates of each series are left out (driftingPeople adds them to
+ * the few rows a panel shows), which spares two ordered aggregates per series.
  */
-export function driftFits(scope: SQL): SQL {
+export function driftFits(scope: SQL, withSeries = true): SQL {
   return sql`
     with pts as (
       select f.organization_id, f.person_id, f.respirator_model_id, f.fit_test_id as id, f.performed_at, f.due_on, f.pass_level,
@@ -31,9 +37,7 @@ export function driftFits(scope: SQL): SQL {
       select g.organization_id, g.person_id, g.respirator_model_id, s.slope,
         percentile_cont(0.5) within group (order by g.y - s.slope * g.t) as intercept,
         percentile_cont(0.5) within group (order by g.y) as median_y,
-        count(*) as tests,
-        array_agg(exp(g.y) order by g.t) as series,
-        array_agg(to_char(g.performed_at at time zone 'UTC', 'YYYY-MM-DD') order by g.t) as dates
+        count(*) as tests${withSeries ? sql`, ${seriesColumns('g', 'y', 'g.t')}` : sql``}
       from groups g join slopes s using (person_id, respirator_model_id)
       group by 1, 2, 3, 4
     ),
@@ -82,17 +86,28 @@ export async function driftingPeople(db: SqlRunner, organizationId: string, f: I
       limit ${limit}`)
     candidates = int((await rows<{ n: unknown }>(db, sql`select count(*) as n from insight_drift d where d.organization_id = ${organizationId} ${model}`))[0]?.n)
   } else {
+    // The flagged fits first; then each shown row's series, through the person-and-model index.
     r = await rows<Record<string, unknown>>(db, sql`
-      with d as (${driftFits(factScope(organizationId, f))})
-      select d.*, ${show}, (select count(*) from d) as candidates
-      from d
-      join people p on p.id = d.person_id
-      join fit_tests ft on ft.id = d.latest_id
-      where d.below_median or d.predicts_fail
-      order by d.slope asc, d.person_id
-      limit ${limit}`)
+      with d as (${driftFits(factScope(organizationId, f), false)}),
+      shown as (
+        select d.*, (select count(*) from d) as candidates from d
+        where d.below_median or d.predicts_fail
+        order by d.slope asc, d.person_id
+        limit ${limit}
+      )
+      select shown.*, s.series, s.dates, ${show}
+      from shown
+      join people p on p.id = shown.person_id
+      join fit_tests ft on ft.id = shown.latest_id
+      cross join lateral (
+        select ${seriesColumns('f', 'ln_fit_factor', 'extract(epoch from f.performed_at) / 31557600.0')}
+        from insight_results f
+        where ${factScope(organizationId, f)} and f.ln_fit_factor is not null
+          and f.person_id = shown.person_id and f.respirator_model_id = shown.respirator_model_id
+      ) s
+      order by shown.slope asc, shown.person_id`)
     candidates = int(r[0]?.candidates)
-    if (r.length === 0) candidates = int((await rows<{ n: unknown }>(db, sql`with d as (${driftFits(factScope(organizationId, f))}) select count(*) as n from d`))[0]?.n)
+    if (r.length === 0) candidates = int((await rows<{ n: unknown }>(db, sql`with d as (${driftFits(factScope(organizationId, f), false)}) select count(*) as n from d`))[0]?.n)
   }
   return {
     candidates,

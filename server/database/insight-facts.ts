@@ -2,7 +2,7 @@ import { sql } from 'drizzle-orm'
 import type { SQL } from 'drizzle-orm'
 import { CANONICAL_MOVEMENTS } from '../../shared/utils/compute/movements'
 import { storeDriftSql } from './insight-drift'
-import { int, rows } from './insight-scope'
+import { int, rows, shareColumn } from './insight-scope'
 import type { SqlRunner } from './insight-scope'
 
 // Keeps the insights summary (insight_results, insight_drift; schema/insights.ts) in step with
@@ -11,7 +11,11 @@ import type { SqlRunner } from './insight-scope'
 // organization; both run the same statements, so the rebuilt summary is the maintained one.
 
 const canonicalList = sql.raw(`array[${CANONICAL_MOVEMENTS.map(m => `'${m}'`).join(', ')}]::text[]`)
-const canonicalShares = sql.raw(`array[${CANONICAL_MOVEMENTS.map(m => `max(share) filter (where movement = '${m}')`).join(', ')}]::float8[]`)
+const shareColumns = sql.raw(CANONICAL_MOVEMENTS.map(shareColumn).join(', '))
+const canonicalShares = sql.raw(CANONICAL_MOVEMENTS.map(m => `max(share) filter (where movement = '${m}') as ${shareColumn(m)}`).join(', '))
+const sharesOf = (alias: string) => sql.raw(CANONICAL_MOVEMENTS.map(m => `${alias}.${shareColumn(m)}`).join(', '))
+/** A summary row `r` without any exercise share (no exercise rows when it was made). */
+const withoutShares = sql.raw(`coalesce(${CANONICAL_MOVEMENTS.map(m => `r.${shareColumn(m)}`).join(', ')}) is null and r.other_shares is null`)
 
 /** Inserts the summary row of every current finished revision with a verdict among `target` (over fit_tests ft). */
 export function insertResults(organizationId: string, target: SQL): SQL {
@@ -46,21 +50,21 @@ export function insertResults(organizationId: string, target: SQL): SQL {
       group by 1, 2
     ),
     shares as (
-      select fit_test_id, ${canonicalShares} as movement_shares,
+      select fit_test_id, ${canonicalShares},
         jsonb_object_agg(movement, share) filter (where movement <> all(${canonicalList})) as other_shares,
         min(movement) filter (where limiting) as limiting_movement
       from movements group by 1
     )
     insert into insight_results (fit_test_id, organization_id, site_id, person_id, tester_user_id, counter_id, respirator_model_id,
       respirator_make, respirator_model, respirator_size, protocol_key, performed_at, passed, ln_fit_factor, overall_is_lower_bound,
-      pass_level, due_on, first_attempt, last_check_at, last_check_passed, limiting_movement, movement_shares, other_shares,
+      pass_level, due_on, first_attempt, last_check_at, last_check_passed, limiting_movement, ${shareColumns}, other_shares,
       time_zone, local_day, last_check_local_day)
     select t.id, t.organization_id, t.site_id, t.person_id, t.tester_user_id, t.counter_id, t.respirator_model_id,
       t.respirator_make, t.respirator_model, t.respirator_size, t.protocol_key, t.performed_at, t.passed,
       case when t.overall_fit_factor > 0 then ln(t.overall_fit_factor) end, t.overall_is_lower_bound,
       t.pass_level, t.due_on, false,
       case when c.first_kind = 0 then c.check_at end, case when c.first_kind = 0 then c.check_passed end,
-      s.limiting_movement, s.movement_shares, s.other_shares,
+      s.limiting_movement, ${sharesOf('s')}, s.other_shares,
       st.time_zone, (t.performed_at at time zone st.time_zone)::date, case when c.first_kind = 0 then (c.check_at at time zone st.time_zone)::date end
     from target t
     join sites st on st.id = t.site_id
@@ -148,7 +152,7 @@ export async function refreshStaleInsightFacts(db: SqlRunner & { transaction<T>(
       select distinct ft.organization_id, ft.record_id from fit_tests ft
       left join insight_results r on r.fit_test_id = ft.id
       where (ft.status = 'finished' and ft.passed is not null and (r.fit_test_id is null
-          or (r.movement_shares is null and r.other_shares is null and exists (select 1 from fit_test_exercise_results e where e.fit_test_id = ft.id))))
+          or (${withoutShares} and exists (select 1 from fit_test_exercise_results e where e.fit_test_id = ft.id))))
         or (r.fit_test_id is not null and ft.status <> 'finished')
       limit ${batch}`)
     const fresh = stale.filter(s => !seen.has(s.record_id))

@@ -1,7 +1,7 @@
 import { sql } from 'drizzle-orm'
 import { CANONICAL_MOVEMENTS } from '../../shared/utils/compute/movements'
 import type { InsightFilters } from '../../shared/utils/insight-schemas'
-import { checkLocalDayOf, factScope, firstAttemptOf, int, localDayOf, num, rows } from './insight-scope'
+import { factScope, firstAttemptOf, int, localDays, num, rows, shareColumn } from './insight-scope'
 import type { SqlRunner } from './insight-scope'
 
 export { driftingPeople } from './insight-drift'
@@ -13,10 +13,11 @@ export { driftingPeople } from './insight-drift'
 /** Pass rates by month or quarter (site time): all attempts and first attempts. */
 export async function passRatesByPeriod(db: SqlRunner, organizationId: string, f: InsightFilters) {
   const unit = f.bucket === 'quarter' ? sql.raw(`'quarter'`) : sql.raw(`'month'`)
+  const local = await localDays(db, organizationId)
   const r = await rows<Record<string, unknown>>(db, sql`
     with s as (
-      select date_trunc(${unit}, ${localDayOf}::timestamp) as period, f.passed, ${firstAttemptOf(f)} as first_attempt
-      from insight_results f join sites st on st.id = f.site_id
+      select date_trunc(${unit}, ${local.day}::timestamp) as period, f.passed, ${firstAttemptOf(f)} as first_attempt
+      from insight_results f ${local.sites}
       where ${factScope(organizationId, f)}
     )
     select to_char(period, 'YYYY-MM-DD') as period, tests, passed, first_tests, first_passed from (
@@ -31,17 +32,20 @@ export async function passRatesByPeriod(db: SqlRunner, organizationId: string, f
 export async function modelSummaries(db: SqlRunner, organizationId: string, f: InsightFilters) {
   const r = await rows<Record<string, unknown>>(db, sql`
     with s as (
-      select f.respirator_model_id, f.respirator_make, f.respirator_model, f.respirator_size, f.passed, f.overall_is_lower_bound,
-        f.ln_fit_factor as ln_ff, ${firstAttemptOf(f)} as first_attempt
+      select f.respirator_model_id, f.respirator_make collate "C" as make, f.respirator_model collate "C" as model, f.respirator_size collate "C" as size,
+        f.passed, f.overall_is_lower_bound, f.ln_fit_factor as ln_ff, ${firstAttemptOf(f)} as first_attempt
       from insight_results f where ${factScope(organizationId, f)}
     )
-    select respirator_model_id, respirator_make, respirator_model, respirator_size,
+    -- Grouped by bytes (collate "C": the same groups, a cheaper sort), shown in the usual order.
+    select * from (
+    select respirator_model_id, make as respirator_make, model as respirator_model, size as respirator_size,
       count(*) as tests, count(*) filter (where passed) as passed,
       count(*) filter (where first_attempt) as first_tests, count(*) filter (where first_attempt and passed) as first_passed,
       count(ln_ff) as quantitative, count(*) filter (where overall_is_lower_bound) as lower_bounds,
       exp(avg(ln_ff)) as gm, exp(stddev_samp(ln_ff)) as gsd, exp(min(ln_ff)) as min_ff, exp(max(ln_ff)) as max_ff,
       percentile_cont(array[0.05, 0.25, 0.5, 0.75, 0.95]) within group (order by ln_ff) as ln_quantiles
-    from s group by 1, 2, 3, 4 order by 2, 3, 4`)
+    from s group by respirator_model_id, size, make, model
+    ) g order by g.respirator_make collate "default", g.respirator_model collate "default", g.respirator_size collate "default"`)
   return r.map(x => ({
     respiratorModelId: String(x.respirator_model_id),
     make: String(x.respirator_make),
@@ -62,9 +66,9 @@ export async function modelSummaries(db: SqlRunner, organizationId: string, f: I
   }))
 }
 
-// Per movement: tests that include it, tests it limits, and the sum of its shares of the penetration.
+// Per movement: tests that include it and the sum of its shares of the penetration.
 const canonicalColumns = sql.raw(CANONICAL_MOVEMENTS.map((m, i) =>
-  `count(f.movement_shares[${i + 1}]) as t${i}, count(*) filter (where f.limiting_movement = '${m}') as l${i}, sum(f.movement_shares[${i + 1}]) as s${i}`).join(',\n      '))
+  `count(f.${shareColumn(m)}) as t${i}, sum(f.${shareColumn(m)}) as s${i}`).join(',\n      '))
 
 interface ExerciseRow { protocolKey: string, respiratorModelId: string | null, make: string | null, model: string | null, movement: string, tests: number, limiting: number, meanShare: number }
 
@@ -72,25 +76,33 @@ interface ExerciseRow { protocolKey: string, respiratorModelId: string | null, m
  * Which exercise breaks the seal: per protocol (and per protocol and model), how often each
  * movement is the limiting one and its mean share of the penetration. Exercises of one movement
  * within a test (normal breathing at start and end) add their shares. One pass over the results
- * groups by protocol and model, the canonical movements as columns (custom protocols' movements
- * from their map); the all-models rows are those groups added up.
+ * groups by protocol, model and limiting movement, the canonical movements as columns (custom
+ * protocols' movements from their map); the per-model and all-models rows are those groups added up.
  */
 export async function exerciseSummaries(db: SqlRunner, organizationId: string, f: InsightFilters): Promise<ExerciseRow[]> {
   const canonical = await rows<Record<string, unknown>>(db, sql`
-    select f.protocol_key, f.respirator_model_id, f.respirator_make, f.respirator_model, ${canonicalColumns}
+    select f.protocol_key, f.respirator_model_id, f.respirator_make, f.respirator_model, f.limiting_movement, count(*) as n, ${canonicalColumns}
     from insight_results f
-    where ${factScope(organizationId, f)} and f.movement_shares is not null
-    group by 1, 2, 3, 4`)
+    where ${factScope(organizationId, f)}
+    group by 1, 2, 3, 4, 5`)
   const custom = await rows<Record<string, unknown>>(db, sql`
     select f.protocol_key, f.respirator_model_id, f.respirator_make, f.respirator_model, o.key as movement,
       count(*) as tests, count(*) filter (where f.limiting_movement = o.key) as limiting, sum(o.value::float8) as share_sum
     from insight_results f cross join lateral jsonb_each_text(f.other_shares) o
     where ${factScope(organizationId, f)} and f.other_shares is not null
     group by 1, 2, 3, 4, 5`)
-  const perModel = [
-    ...canonical.flatMap(x => CANONICAL_MOVEMENTS.map((movement, i) => ({ x, movement, tests: int(x[`t${i}`]), limiting: int(x[`l${i}`]), shareSum: Number(x[`s${i}`] ?? 0) }))),
-    ...custom.map(x => ({ x, movement: String(x.movement), tests: int(x.tests), limiting: int(x.limiting), shareSum: Number(x.share_sum) }))
-  ].filter(g => g.tests > 0)
+  type Group = { x: Record<string, unknown>, movement: string, tests: number, limiting: number, shareSum: number }
+  const byModel = new Map<string, Group>()
+  const add = (g: Group) => {
+    const key = [g.x.protocol_key, g.x.respirator_model_id, g.x.respirator_make, g.x.respirator_model, g.movement].map(String).join('\u0000')
+    const sum = byModel.get(key)
+    byModel.set(key, sum ? { ...sum, tests: sum.tests + g.tests, limiting: sum.limiting + g.limiting, shareSum: sum.shareSum + g.shareSum } : g)
+  }
+  for (const x of canonical) {
+    CANONICAL_MOVEMENTS.forEach((movement, i) => add({ x, movement, tests: int(x[`t${i}`]), limiting: x.limiting_movement === movement ? int(x.n) : 0, shareSum: Number(x[`s${i}`] ?? 0) }))
+  }
+  for (const x of custom) add({ x, movement: String(x.movement), tests: int(x.tests), limiting: int(x.limiting), shareSum: Number(x.share_sum) })
+  const perModel = [...byModel.values()].filter(g => g.tests > 0)
   const all = new Map<string, { protocolKey: string, movement: string, tests: number, limiting: number, shareSum: number }>()
   for (const g of perModel) {
     const key = `${String(g.x.protocol_key)}\u0000${g.movement}`
@@ -127,24 +139,27 @@ export async function testerSummaries(db: SqlRunner, organizationId: string, f: 
  * that day — the rule of shared/utils/coverage.ts decideCoverage.
  */
 export async function coverageSummaries(db: SqlRunner, organizationId: string, f: InsightFilters) {
+  // One pass: results without a counter form the group whose counter_id is null.
+  const local = await localDays(db, organizationId)
   const r = await rows<Record<string, unknown>>(db, sql`
     with s as (
-      select f.counter_id, f.last_check_passed, ${checkLocalDayOf} as check_day, ${localDayOf} as day
-      from insight_results f join sites st on st.id = f.site_id
-      where ${factScope(organizationId, f)} and f.counter_id is not null
+      select f.counter_id, f.last_check_passed, ${local.checkDay} as check_day, ${local.day} as day
+      from insight_results f ${local.sites}
+      where ${factScope(organizationId, f)}
     ),
     g as (
       select s.counter_id, date_trunc('month', s.day::timestamp) as period, count(*) as tests,
         count(*) filter (where s.last_check_passed and s.check_day = s.day and (c.calibration_due_on is null or s.day <= c.calibration_due_on)) as covered
-      from s join counters c on c.id = s.counter_id
+      from s left join counters c on c.id = s.counter_id
+      where s.counter_id is null or c.id is not null
       group by 1, 2
     )
     select g.counter_id, c.serial_number, to_char(g.period, 'YYYY-MM-DD') as period, g.tests, g.covered
-    from g join counters c on c.id = g.counter_id
+    from g left join counters c on c.id = g.counter_id
     order by c.serial_number, g.period`)
-  const [noCounter] = await rows<{ n: unknown }>(db, sql`select count(*) as n from insight_results f where ${factScope(organizationId, f)} and f.counter_id is null`)
+  const withCounter = r.filter(x => x.counter_id !== null)
   return {
-    withoutCounter: int(noCounter?.n),
-    rows: r.map(x => ({ counterId: String(x.counter_id), counterSerial: String(x.serial_number), period: String(x.period), tests: int(x.tests), covered: int(x.covered) }))
+    withoutCounter: r.filter(x => x.counter_id === null).reduce((n, x) => n + int(x.tests), 0),
+    rows: withCounter.map(x => ({ counterId: String(x.counter_id), counterSerial: String(x.serial_number), period: String(x.period), tests: int(x.tests), covered: int(x.covered) }))
   }
 }

@@ -10,6 +10,30 @@ export interface SqlRunner {
   execute(query: SQL): Promise<{ rows: unknown[] }>
 }
 
+/** A runner that can also open a transaction: the app's pool, or a script's drizzle. */
+export interface TransactionalRunner extends SqlRunner {
+  transaction<T>(run: (tx: SqlRunner) => Promise<T>): Promise<T>
+}
+
+/**
+ * Runs one panel's queries in a transaction of their own with enough sort and hash memory
+ * (`work_mem`) that grouping a whole organization's results stays in memory instead of spilling
+ * to disk. SET LOCAL ends with the transaction, so other queries on the same connection keep the
+ * server's defaults.
+ */
+export function insightRead<T>(db: TransactionalRunner, run: (tx: SqlRunner) => Promise<T>): Promise<T> {
+  return db.transaction(async (tx) => {
+    // One snapshot for a panel's few statements (zonesCurrent, then the panel's own).
+    await tx.execute(sql.raw('set transaction isolation level repeatable read, read only'))
+    await tx.execute(sql.raw(`set local work_mem = '${INSIGHT_WORK_MEM}'`))
+    return run(tx)
+  })
+}
+export const INSIGHT_WORK_MEM = '32MB'
+
+/** The insight_results column holding a canonical movement's penetration share. */
+export const shareColumn = (movement: string) => `share_${movement.replace(/-/g, '_')}`
+
 export async function rows<T>(db: SqlRunner, query: SQL): Promise<T[]> {
   const result = await db.execute(query)
   return result.rows as T[]
@@ -50,6 +74,34 @@ export function keepsWholeSeries(f: InsightFilters): boolean {
  */
 export const localDayOf = sql`(case when f.time_zone = st.time_zone then f.local_day else (f.performed_at at time zone st.time_zone)::date end)`
 export const checkLocalDayOf = sql`(case when f.time_zone = st.time_zone then f.last_check_local_day else (f.last_check_at at time zone st.time_zone)::date end)`
+
+/**
+ * Whether every summary row of the organization still carries its site's current time zone — the
+ * usual case, as a site's zone seldom changes. Then the stored local days hold as they are and a
+ * panel needs no join to the sites (localDays).
+ */
+export async function zonesCurrent(db: SqlRunner, organizationId: string): Promise<boolean> {
+  // The least and greatest zone per site: two reads at either end of the zone index.
+  const [r] = await rows<{ stale: boolean }>(db, sql`
+    select coalesce(bool_or(z.lo <> st.time_zone or z.hi <> st.time_zone), false) as stale
+    from sites st
+    cross join lateral (
+      select min(f.time_zone) as lo, max(f.time_zone) as hi from insight_results f
+      where f.organization_id = st.organization_id and f.site_id = st.id
+    ) z
+    where st.organization_id = ${organizationId}`)
+  return r?.stale === false
+}
+
+/**
+ * The calendar days of a summary row `f` and of its last readiness check (localDayOf and
+ * checkLocalDayOf), with the join to the sites they need: none when the zones are current.
+ */
+export async function localDays(db: SqlRunner, organizationId: string) {
+  return await zonesCurrent(db, organizationId)
+    ? { day: sql`f.local_day`, checkDay: sql`f.last_check_local_day`, sites: sql`` }
+    : { day: localDayOf, checkDay: checkLocalDayOf, sites: sql`join sites st on st.id = f.site_id` }
+}
 
 /** A person's first result on a model among the rows in scope, as SQL over `f`. */
 export function firstAttemptOf(f: InsightFilters): SQL {

@@ -5,7 +5,7 @@ import { evaluateFitTest } from '#shared/utils/fit-test-evaluate'
 import type { InsightFilters } from '#shared/utils/insight-schemas'
 import { refreshInsightFacts } from '../database/insight-facts'
 import * as queries from '../database/insight-queries'
-import { insightScope as rawScope } from '../database/insight-scope'
+import { insightRead, insightScope as rawScope } from '../database/insight-scope'
 
 export const insightScope = rawScope
 
@@ -17,12 +17,12 @@ type Tx = Parameters<Parameters<Database['transaction']>[0]>[0]
  */
 export const refreshInsights = (tx: Tx, organizationId: string, recordId: string) => refreshInsightFacts(tx, organizationId, [recordId])
 
-export const passRatesByPeriod = (organizationId: string, f: InsightFilters) => queries.passRatesByPeriod(useDb(), organizationId, f)
-export const modelSummaries = (organizationId: string, f: InsightFilters) => queries.modelSummaries(useDb(), organizationId, f)
-export const exerciseSummaries = (organizationId: string, f: InsightFilters) => queries.exerciseSummaries(useDb(), organizationId, f)
-export const driftingPeople = (organizationId: string, f: InsightFilters) => queries.driftingPeople(useDb(), organizationId, f)
-export const testerSummaries = (organizationId: string, f: InsightFilters) => queries.testerSummaries(useDb(), organizationId, f)
-export const coverageSummaries = (organizationId: string, f: InsightFilters) => queries.coverageSummaries(useDb(), organizationId, f)
+export const passRatesByPeriod = (organizationId: string, f: InsightFilters) => insightRead(useDb(), db => queries.passRatesByPeriod(db, organizationId, f))
+export const modelSummaries = (organizationId: string, f: InsightFilters) => insightRead(useDb(), db => queries.modelSummaries(db, organizationId, f))
+export const exerciseSummaries = (organizationId: string, f: InsightFilters) => insightRead(useDb(), db => queries.exerciseSummaries(db, organizationId, f))
+export const driftingPeople = (organizationId: string, f: InsightFilters) => insightRead(useDb(), db => queries.driftingPeople(db, organizationId, f))
+export const testerSummaries = (organizationId: string, f: InsightFilters) => insightRead(useDb(), db => queries.testerSummaries(db, organizationId, f))
+export const coverageSummaries = (organizationId: string, f: InsightFilters) => insightRead(useDb(), db => queries.coverageSummaries(db, organizationId, f))
 
 async function rows<T>(query: ReturnType<typeof sql>): Promise<T[]> {
   return (await useDb().execute(query)).rows as T[]

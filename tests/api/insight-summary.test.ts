@@ -156,8 +156,7 @@ describe('the insights summary stays equal to the raw rows', () => {
     ['one size', () => ({ respiratorSize: 'L' })],
     ['the custom protocol', () => ({ protocolKey: customProtocolKey })]
   ]
-  it.each(filterSets)('every panel, %s', async (_label, make) => {
-    const f = make()
+  async function expectPanelsEqualRaw(f: Partial<InsightFilters>) {
     const filters: InsightFilters = { bucket: 'month', ...f } as InsightFilters
     const db = testDb()
     const q = qs(f)
@@ -188,6 +187,10 @@ describe('the insights summary stays equal to the raw rows', () => {
     const rawCoverage = await raw.coverageSummaries(db, org.id, filters)
     expect(coverage.body.withoutCounter).toBe(rawCoverage.withoutCounter)
     expectSame(coverage.body.rows, rawCoverage.rows)
+  }
+
+  it.each(filterSets)('every panel, %s', async (_label, make) => {
+    await expectPanelsEqualRaw(make())
   })
 
   it('the scenario reaches every part of the summary', async () => {
@@ -216,5 +219,21 @@ describe('the insights summary stays equal to the raw rows', () => {
     expect(kept.results.filter(r => r.firstAttempt)).toHaveLength(new Set(kept.results.map(r => `${r.personId}|${r.respiratorModelId}`)).size)
     await rebuildInsightFacts(db, org.id)
     expectSame(await snapshot(), kept)
+  })
+
+  it('a site whose time zone changed after its results were summarized: every panel still equal', async () => {
+    // The panels read the stored local days only while every summarized zone is still its site's;
+    // here the main site moves from New York to Tokyo, which puts its afternoon results on the
+    // next day, after the day of the morning's readiness check.
+    const db = testDb()
+    const [main] = await db.select({ timeZone: schema.sites.timeZone }).from(schema.sites).where(eq(schema.sites.id, program.siteId))
+    await db.update(schema.sites).set({ timeZone: 'Asia/Tokyo' }).where(eq(schema.sites.id, program.siteId))
+    try {
+      const coverage = (await reviewer.get('/api/insights/coverage')).body.rows as { covered: number }[]
+      expect(coverage.reduce((a, r) => a + r.covered, 0)).toBe(0)
+      for (const f of [{}, { bucket: 'quarter' as const }, { siteId: program.siteId }, { from: '2026-02-01' }]) await expectPanelsEqualRaw(f)
+    } finally {
+      await db.update(schema.sites).set({ timeZone: main!.timeZone }).where(eq(schema.sites.id, program.siteId))
+    }
   })
 })

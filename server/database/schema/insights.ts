@@ -49,15 +49,26 @@ export const insightResults = pgTable('insight_results', {
   limitingMovement: text(),
   /**
    * Penetration share of each canonical movement in this test (exercises of one movement added),
-   * in the order of CANONICAL_MOVEMENTS; null where the protocol lacks the movement.
+   * one column per entry of CANONICAL_MOVEMENTS (shared/utils/compute/movements.ts; the SQL names
+   * them through shareColumn in insight-scope.ts); null where the protocol lacks the movement.
+   * Plain columns, not an array, so the exercises panel sums them without unpacking a value per row.
    */
-  movementShares: doublePrecision().array(),
+  shareNormalBreathing: doublePrecision(),
+  shareDeepBreathing: doublePrecision(),
+  shareHeadSideToSide: doublePrecision(),
+  shareHeadUpAndDown: doublePrecision(),
+  shareTalking: doublePrecision(),
+  shareGrimace: doublePrecision(),
+  shareBending: doublePrecision(),
+  shareJogging: doublePrecision(),
   /** Shares of movements outside the canonical list (custom protocols), by movement. */
   otherShares: jsonb().$type<Record<string, number>>()
 }, table => [
   index('insight_results_organization_performed_idx').on(table.organizationId, table.performedAt),
   index('insight_results_organization_model_idx').on(table.organizationId, table.respiratorModelId, table.performedAt),
-  index('insight_results_person_model_idx').on(table.organizationId, table.personId, table.respiratorModelId, table.performedAt)
+  index('insight_results_person_model_idx').on(table.organizationId, table.personId, table.respiratorModelId, table.performedAt),
+  // zonesCurrent: is any row's zone no longer its site's?
+  index('insight_results_site_zone_idx').on(table.organizationId, table.siteId, table.timeZone)
 ])
 
 /**
