@@ -7,7 +7,9 @@
 // of four pages in headless Chromium. Prints figures and ratios; asserts nothing; never in npm test.
 //   SEALWRIGHT_BENCH_SECONDS (6), SEALWRIGHT_BENCH_CONNECTIONS (10), SEALWRIGHT_BENCH_PEOPLE (2000),
 //   SEALWRIGHT_BENCH_TESTS (20000), SEALWRIGHT_BENCH_REUSE=1 keeps the scratch database,
-//   SEALWRIGHT_BENCH_PORT (3090; the floor uses the next port), SEALWRIGHT_PG_PORT (54329).
+//   SEALWRIGHT_BENCH_PORT (3090; the floor uses the next port), SEALWRIGHT_PG_PORT (54329),
+//   SEALWRIGHT_BENCH_ONLY=detail,person measures only the routes whose label starts with those words,
+//   SEALWRIGHT_BENCH_PROFILE=<dir> writes a CPU profile of the app (node --cpu-prof) there when it stops.
 import { spawn } from 'node:child_process'
 import { existsSync, readFileSync, writeFileSync } from 'node:fs'
 import { join } from 'node:path'
@@ -16,7 +18,7 @@ import autocannon from 'autocannon'
 import pg from 'pg'
 import { prepareDatabase } from './lib/database.mjs'
 import { ensureBuild } from './lib/build.mjs'
-import { appEnv, ensureDatabaseServer, startBuiltApp } from './lib/services.mjs'
+import { appEnv, ensureDatabaseServer, httpOk, startBuiltApp, startService } from './lib/services.mjs'
 import { sessionPassword } from './lib/secrets.mjs'
 import { BENCH_EMAIL, BENCH_PASSWORD, ORG, benchTargets, seedBench } from './bench-api/seed'
 import { firstLoadJs } from './bench-api/first-load'
@@ -54,10 +56,16 @@ async function main() {
     await ensureBuild(projectDir)
   }
   writeFileSync(sqlLog, '')
-  const app = await startBuiltApp(projectDir, {
+  const appEnvironment = {
     ...appEnv({ databaseUrl: appUrl, sessionPassword: sessionPassword(join(projectDir, '.data', 'session-password')), port, smtpUrl: 'smtp://127.0.0.1:9', outboxUrl: '' }),
     SEALWRIGHT_BENCH_SQL_LOG: sqlLog
-  }, { quiet: env.SEALWRIGHT_BENCH_VERBOSE !== '1' })
+  }
+  const quiet = env.SEALWRIGHT_BENCH_VERBOSE !== '1'
+  const app = env.SEALWRIGHT_BENCH_PROFILE
+    ? await startService('app', process.execPath, ['--cpu-prof', `--cpu-prof-dir=${env.SEALWRIGHT_BENCH_PROFILE}`, join(projectDir, '.output', 'server', 'index.mjs')], {
+        cwd: projectDir, env: appEnvironment, quiet, timeoutMs: 60_000, ready: () => httpOk(`http://127.0.0.1:${port}/api/health`)
+      })
+    : await startBuiltApp(projectDir, appEnvironment, { quiet })
   stops.push(app.stop)
   await backfillSettled(ownerUrl)
   const base = `http://127.0.0.1:${port}`
@@ -66,12 +74,13 @@ async function main() {
   const cookie = signIn.headers.getSetCookie().map(c => c.split(';')[0]).join('; ')
   const headers = { cookie, 'accept-encoding': 'gzip, br' }
 
+  const only = env.SEALWRIGHT_BENCH_ONLY?.split(',').map(w => w.trim()).filter(Boolean)
   const routes = [
     { label: 'fit-test detail (series)', api: `/api/fit-tests/${testId}`, page: `/fit-tests/${testId}` },
     { label: 'fit-test list, 25 a page', api: '/api/fit-tests?pageSize=25', page: '/fit-tests' },
     { label: 'overview', api: '/api/overview', page: '/' },
     { label: 'person', api: `/api/people/${personId}`, page: `/people/${personId}` }
-  ]
+  ].filter(r => !only?.length || only.some(w => r.label.startsWith(w)))
   const summary: string[] = []
   say(`${connections} connections, ${seconds} s each, ${size.people.toLocaleString('en')} people, ${size.tests.toLocaleString('en')} tests`)
   const header = ['what', 'req/s', 'p50 ms', 'p99 ms', 'errors', 'bytes/req', 'round trips']
@@ -90,6 +99,7 @@ async function main() {
   say('')
   for (const line of summary) say(line)
 
+  if (only?.length) return
   say('\nFirst-load JavaScript (gzipped; target ≤ 150 kB):')
   const loads = await firstLoadJs(base, cookie, [
     { label: 'sign-in', path: '/sign-in', signedIn: false },

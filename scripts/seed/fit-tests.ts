@@ -160,7 +160,7 @@ function buildTest(s: TestSpec): TestRows {
   })
   const entry: FitTestEntry = { mode: 'grid', exercises, wholeTestAmbient: wholeTest ? { start, end } : null, seriesOffsetSeconds: 0, qualitative: null }
   const level = resolvePassLevel({ ruleSet, respiratorClass: s.model.respiratorClass, overrides: s.orgRow.settings.passLevelOverrides })
-  const { stored } = storedFieldsOf({ kind: 'quantitative', protocol, entry, sampleFlowCm3PerMin: s.counter.sampleFlowCm3PerMin, passLevel: level.ok ? level.value.level : null, testedOn: localDate(s.performedAt, s.site.timeZone), retestMonths: 12 })
+  const { stored, evaluation } = storedFieldsOf({ kind: 'quantitative', protocol, entry, sampleFlowCm3PerMin: s.counter.sampleFlowCm3PerMin, passLevel: level.ok ? level.value.level : null, testedOn: localDate(s.performedAt, s.site.timeZone), retestMonths: 12 })
   const recordId = randomUUID()
   const id = randomUUID()
   return {
@@ -170,7 +170,7 @@ function buildTest(s: TestSpec): TestRows {
       respiratorModelId: s.model.id, respiratorMake: s.model.make, respiratorModel: s.model.model, respiratorClass: s.model.respiratorClass, respiratorSize: s.size,
       kind: 'quantitative', protocolKey: protocol.key, protocol, sampleFlowCm3PerMin: s.counter.sampleFlowCm3PerMin, performedAt: s.performedAt,
       preTest: { medicalClearanceCurrent: true, nothingCrossingSeal: true, userSealCheckDone: true, comfortAcceptable: true },
-      entry, ...stored, finishedAt: new Date(s.performedAt.getTime() + 9 * 60_000), finishedByUserId: s.org.userIds.tester!
+      entry, ...stored, evaluation, finishedAt: new Date(s.performedAt.getTime() + 9 * 60_000), finishedByUserId: s.org.userIds.tester!
     },
     card: stored.passed ? { organizationId: s.org.id, recordId, fitTestId: id, token: randomBytes(24).toString('base64url') } : null
   }

@@ -72,14 +72,14 @@ export async function seedInsights(db: SeedDb, orgs: SeededOrganization[], onPro
       const site = sites[0]!
       const counter = counters[0]!
       const level = resolvePassLevel({ ruleSet: orgRow!.ruleSet as PassLevelRuleSetKey, respiratorClass: model.respiratorClass, overrides: orgRow!.settings.passLevelOverrides })
-      const { stored } = storedFieldsOf({ kind: 'quantitative', protocol, entry, sampleFlowCm3PerMin: counter.sampleFlowCm3PerMin, passLevel: level.ok ? level.value.level : null, testedOn: localDate(o.at, site.timeZone), retestMonths: 12 })
+      const { stored, evaluation } = storedFieldsOf({ kind: 'quantitative', protocol, entry, sampleFlowCm3PerMin: counter.sampleFlowCm3PerMin, passLevel: level.ok ? level.value.level : null, testedOn: localDate(o.at, site.timeZone), retestMonths: 12 })
       const recordId = randomUUID()
       tests.push({
         organizationId: org.id, recordId, revision: 1, status: 'finished', version: 2, personId: o.personId, siteId: site.id, testerUserId: o.testerId, counterId: counter.id,
         respiratorModelId: model.id, respiratorMake: model.make, respiratorModel: model.model, respiratorClass: model.respiratorClass, respiratorSize: o.size,
         kind: 'quantitative', protocolKey: protocol.key, protocol, sampleFlowCm3PerMin: counter.sampleFlowCm3PerMin, performedAt: o.at,
         preTest: { medicalClearanceCurrent: true, nothingCrossingSeal: true, userSealCheckDone: true, comfortAcceptable: true },
-        entry, ...stored, finishedAt: new Date(o.at.getTime() + 9 * 60_000), finishedByUserId: o.testerId
+        entry, ...stored, evaluation, finishedAt: new Date(o.at.getTime() + 9 * 60_000), finishedByUserId: o.testerId
       })
       cards.push({ organizationId: org.id, recordId, token: randomBytes(24).toString('base64url') })
     }

@@ -21,7 +21,7 @@ export interface Caller {
  * user passes.
  */
 export async function requireRole(event: H3Event, permission?: Permission): Promise<Caller> {
-  const session = await getUserSession(event)
+  const session = await readUserSession(event)
   const sessionUser = session.user
   if (!sessionUser?.id) {
     throw httpError(401, 'Sign in to continue.')

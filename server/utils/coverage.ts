@@ -56,13 +56,28 @@ export async function findCoverageMany(
       (select coalesce(json_agg(json_build_object('id', ${c.id}, 'counterId', ${c.counterId}, 'benchRigId', ${c.benchRigId}, 'status', ${c.status}, 'completedAt', ${c.completedAt})), '[]'::json)
         from ${c} where ${c.organizationId} = ${organizationId} and ${c.completedAt} between ${from}::timestamptz and ${to}::timestamptz) as checks`)
   ])
-  const counters = loaded!.counters
-  const checks = loaded!.checks.map(check => ({ ...check, completedAt: check.completedAt === null ? null : new Date(check.completedAt) }))
+  return coverageOfMany(measured, sites, loaded!.counters, loaded!.checks)
+}
+
+type LoadedCheck = { id: string, counterId: string, benchRigId: string | null, status: string, completedAt: string | Date | null }
+
+/**
+ * The coverage rule applied to many results, given the sites (time zones), the counters'
+ * calibration dates and the readiness checks loaded for them (completion times as JSON gives them).
+ */
+export function coverageOfMany(
+  results: { id: string, counterId: string | null, siteId: string | null, performedAt: Date }[],
+  sites: { id: string, timeZone: string }[],
+  counters: { id: string, calibrationDueOn: string | null }[],
+  loadedChecks: LoadedCheck[]
+): Map<string, Coverage> {
+  const out = new Map<string, Coverage>()
+  const checks = loadedChecks.map(check => ({ ...check, completedAt: check.completedAt === null ? null : new Date(check.completedAt) }))
   const zone = new Map(sites.map(s => [s.id, s.timeZone]))
   const calibration = new Map(counters.map(k => [k.id, k]))
   // Checks sorted by time, so each result looks only at the ±2-day slice around it.
-  const sorted = checks.filter(k => k.completedAt).sort((a, b) => new Date(a.completedAt!).getTime() - new Date(b.completedAt!).getTime())
-  const checkTimes = sorted.map(k => new Date(k.completedAt!).getTime())
+  const sorted = checks.filter(k => k.completedAt).sort((a, b) => a.completedAt!.getTime() - b.completedAt!.getTime())
+  const checkTimes = sorted.map(k => k.completedAt!.getTime())
   const firstAtOrAfter = (t: number) => {
     let lo = 0
     let hi = checkTimes.length
@@ -73,7 +88,8 @@ export async function findCoverageMany(
     }
     return lo
   }
-  for (const r of measured) {
+  for (const r of results) {
+    if (!r.counterId) continue
     const at = new Date(r.performedAt).getTime()
     const near = sorted.slice(firstAtOrAfter(at - 2 * DAY_MS), firstAtOrAfter(at + 2 * DAY_MS + 1))
     out.set(r.id, decideCoverage({ counterId: r.counterId, benchRigId: null, performedAt: r.performedAt, timeZone: (r.siteId && zone.get(r.siteId)) || 'UTC' }, near, calibration.get(r.counterId) ?? null))

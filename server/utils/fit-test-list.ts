@@ -5,7 +5,7 @@ import type { ListFitTestsQuery } from '#shared/utils/fit-test-schemas'
 const t = schema.fitTests
 const p = schema.people
 
-function conditions(organizationId: string, q: Omit<ListFitTestsQuery, 'page' | 'pageSize' | 'sort' | 'dir'>, onlyPersonUserId?: string) {
+export function listConditions(organizationId: string, q: Omit<ListFitTestsQuery, 'page' | 'pageSize' | 'sort' | 'dir'>, onlyPersonUserId?: string) {
   const where: (SQL | undefined)[] = [
     eq(t.organizationId, organizationId),
     // One line per record: superseded revisions and open corrections stay on the record's own page.
@@ -30,7 +30,8 @@ function conditions(organizationId: string, q: Omit<ListFitTestsQuery, 'page' | 
   return and(...where)
 }
 
-const columns = {
+/** What one line of a fit-test list shows (the joins are in `listFitTests`). */
+export const listColumns = {
   id: t.id,
   recordId: t.recordId,
   revision: t.revision,
@@ -60,12 +61,17 @@ const columns = {
 }
 
 export async function listFitTests(organizationId: string, q: ListFitTestsQuery, onlyPersonUserId?: string) {
-  const where = conditions(organizationId, q, onlyPersonUserId)
+  const where = listConditions(organizationId, q, onlyPersonUserId)
   const order = q.dir === 'asc' ? asc : desc
   const sortColumn = q.sort === 'person' ? p.fullName : q.sort === 'overallFitFactor' ? t.overallFitFactor : t.performedAt
   // The page and its total in one round trip (the total is an uncorrelated subquery, run once).
-  const totalOf = sql<number>`(${useDb().select({ n: count() }).from(t).innerJoin(p, eq(p.id, t.personId)).where(where)})`.mapWith(Number)
-  const found = await useDb().select({ ...columns, total: totalOf }).from(t)
+  // The count joins people only when a filter reads them (every record has its person).
+  const counted = () => {
+    const from = useDb().select({ n: count() }).from(t)
+    return (q.q || onlyPersonUserId ? from.innerJoin(p, eq(p.id, t.personId)) : from).where(where)
+  }
+  const totalOf = sql<number>`(${counted()})`.mapWith(Number)
+  const found = await useDb().select({ ...listColumns, total: totalOf }).from(t)
     .innerJoin(p, eq(p.id, t.personId))
     .innerJoin(schema.sites, eq(schema.sites.id, t.siteId))
     .innerJoin(schema.users, eq(schema.users.id, t.testerUserId))
@@ -73,20 +79,20 @@ export async function listFitTests(organizationId: string, q: ListFitTestsQuery,
     .where(where).orderBy(order(sortColumn), desc(t.performedAt)).limit(q.pageSize).offset((q.page - 1) * q.pageSize)
   const rows = found.map(({ total: _total, ...row }) => row)
   // A page past the end has no row to carry the total.
-  const total = found[0]?.total ?? (q.page > 1 ? (await useDb().select({ n: count() }).from(t).innerJoin(p, eq(p.id, t.personId)).where(where))[0]?.n ?? 0 : 0)
+  const total = found[0]?.total ?? (q.page > 1 ? (await counted())[0]?.n ?? 0 : 0)
   const coverage = await findCoverageMany(organizationId, rows)
   return { rows: rows.map(r => ({ ...r, coverage: coverage.get(r.id) ?? null })), total, page: q.page, pageSize: q.pageSize }
 }
 
 /** The list's rows with the raw inputs the export recomputes each exercise from. */
 export async function exportFitTests(organizationId: string, q: ListFitTestsQuery) {
-  const rows = await useDb().select({ ...columns, protocol: t.protocol, entry: t.entry, seriesText: t.seriesText, sampleFlowCm3PerMin: t.sampleFlowCm3PerMin })
+  const rows = await useDb().select({ ...listColumns, protocol: t.protocol, entry: t.entry, seriesText: t.seriesText, sampleFlowCm3PerMin: t.sampleFlowCm3PerMin })
     .from(t)
     .innerJoin(p, eq(p.id, t.personId))
     .innerJoin(schema.sites, eq(schema.sites.id, t.siteId))
     .innerJoin(schema.users, eq(schema.users.id, t.testerUserId))
     .leftJoin(schema.counters, eq(schema.counters.id, t.counterId))
-    .where(conditions(organizationId, q)).orderBy(desc(t.performedAt)).limit(50_000)
+    .where(listConditions(organizationId, q)).orderBy(desc(t.performedAt)).limit(50_000)
   const coverage = await findCoverageMany(organizationId, rows)
   return rows.map(r => ({ ...r, coverage: coverage.get(r.id) ?? null }))
 }

@@ -1,4 +1,4 @@
-import { and, eq, sql } from 'drizzle-orm'
+import { and, eq, getTableColumns, sql } from 'drizzle-orm'
 import type { FitTestRow } from './fit-tests'
 
 const t = schema.fitTests
@@ -20,7 +20,10 @@ export async function loadFitTestRecord(organizationId: string, id: string) {
   const c = schema.counters
   const m = schema.maskUnits
   const [found] = await useDb().select({
-    test: t,
+    // A finished revision's page reads its stored result, so its series (often the largest field)
+    // is read only for a draft, or for a result stored before results were (recomputed from it).
+    test: { ...getTableColumns(t), seriesText: sql<string | null>`case when ${t.status} = 'draft' or ${t.evaluation} is null then ${t.seriesText} end` },
+    hasSeries: sql<boolean>`${t.seriesText} is not null`,
     site: { id: schema.sites.id, name: schema.sites.name, timeZone: schema.sites.timeZone },
     person: { id: p.id, fullName: p.fullName, employeeNumber: p.employeeNumber, jobTitle: p.jobTitle, userId: p.userId },
     testerName: schema.users.displayName,

@@ -32,7 +32,7 @@ function viewOf(record: FitTestRecord, org: Awaited<ReturnType<typeof findOrgani
   return {
     ...fields,
     seriesText: row.status === 'draft' ? row.seriesText : null,
-    hasSeries: Boolean(row.seriesText),
+    hasSeries: record.hasSeries,
     person: person ? { id: person.id, fullName: person.fullName, employeeNumber: person.employeeNumber, jobTitle: person.jobTitle } : null,
     site,
     testerName: record.testerName ?? 'Unknown',

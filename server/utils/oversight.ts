@@ -1,23 +1,34 @@
-import { and, desc, eq, inArray, isNull, sql } from 'drizzle-orm'
+import { and, eq, inArray, isNull, sql } from 'drizzle-orm'
 import { localDate } from '#shared/utils/fit-test-evaluate'
 import { RESPIRATOR_CLASSES } from '#shared/utils/compute'
 import { clearanceStanding, coveringClearance, overallStatus, respiratorStandings } from '#shared/utils/oversight'
 import type { ClearanceRecord, FitEvent, RespiratorStanding } from '#shared/utils/oversight'
 import type { Caller } from './auth'
+import type { Decoded } from './json-rows'
+
+const t = schema.fitTests
+
+/** What a fit event needs of a finished test (its site's time zone decides its local date). */
+export const finishedTestFacts = {
+  id: t.id, personId: t.personId, respiratorModelId: t.respiratorModelId, make: t.respiratorMake, model: t.respiratorModel,
+  respiratorClass: t.respiratorClass, size: t.respiratorSize, performedAt: t.performedAt, passed: t.passed, dueOn: t.dueOn, timeZone: schema.sites.timeZone
+}
+type FinishedTestFact = Decoded<typeof finishedTestFacts>
 
 /** Finished fit tests and imported history of an organization (optionally some people), as fit events per person. */
 export async function loadFitEvents(organizationId: string, personIds?: string[]): Promise<Map<string, FitEvent[]>> {
-  const t = schema.fitTests
   const h = schema.fitHistoryEntries
   const db = useDb()
   const [tests, history] = await Promise.all([
-    db.select({
-      id: t.id, personId: t.personId, respiratorModelId: t.respiratorModelId, make: t.respiratorMake, model: t.respiratorModel,
-      respiratorClass: t.respiratorClass, size: t.respiratorSize, performedAt: t.performedAt, passed: t.passed, dueOn: t.dueOn, timeZone: schema.sites.timeZone
-    }).from(t).innerJoin(schema.sites, eq(schema.sites.id, t.siteId))
+    db.select(finishedTestFacts).from(t).innerJoin(schema.sites, eq(schema.sites.id, t.siteId))
       .where(and(eq(t.organizationId, organizationId), eq(t.status, 'finished'), personIds ? inArray(t.personId, personIds) : undefined)),
     db.select().from(h).where(and(eq(h.organizationId, organizationId), personIds ? inArray(h.personId, personIds) : undefined))
   ])
+  return fitEventsOf(tests, history)
+}
+
+/** The finished tests' rows (their site's time zone beside) and imported history, as fit events per person. */
+export function fitEventsOf(tests: FinishedTestFact[], history: (typeof schema.fitHistoryEntries.$inferSelect)[]): Map<string, FitEvent[]> {
   const out = new Map<string, FitEvent[]>()
   const push = (personId: string, e: FitEvent) => out.set(personId, [...(out.get(personId) ?? []), e])
   for (const r of tests) {
@@ -95,25 +106,6 @@ export function dueItemsOf(standing: PersonStanding): DueItem[] {
   if (c.status === 'lapsing') items.push({ reason: 'clearance-lapsing', dueItem: 'clearance', dueOn: c.validUntil, label: 'Medical clearance' })
   if (c.status === 'none' && standing.respirators.length) items.push({ reason: 'no-clearance', dueItem: 'clearance', dueOn: null, label: 'Medical clearance' })
   return items
-}
-
-/** Everything the person page shows about oversight: respirators, clearances, reminders sent, the linked account. */
-export async function personOversight(organizationId: string, personId: string, today: string) {
-  const c = schema.medicalClearances
-  const r = schema.reminderLog
-  const db = useDb()
-  const [standingFor, clearances, reminders] = await Promise.all([
-    loadStandings(organizationId, today, [personId]),
-    db.select().from(c).where(and(eq(c.organizationId, organizationId), eq(c.personId, personId))).orderBy(desc(c.clearedOn)),
-    db.select().from(r).where(and(eq(r.organizationId, organizationId), eq(r.personId, personId), eq(r.kind, 'wearer'))).orderBy(desc(r.createdAt)).limit(100)
-  ])
-  const standing = standingFor(personId)
-  return {
-    standing,
-    dueItems: dueItemsOf(standing),
-    clearances,
-    reminders: reminders.map(x => ({ id: x.id, dueItem: x.dueItem, dueOn: x.dueOn, step: x.step, recipient: x.recipient, kind: x.kind, trigger: x.trigger, sentAt: x.sentAt, error: x.error, createdAt: x.createdAt }))
-  }
 }
 
 type Tx = Parameters<Parameters<Database['transaction']>[0]>[0]

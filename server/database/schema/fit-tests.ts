@@ -89,6 +89,8 @@ export const fitTests = pgTable('fit_tests', {
   oneOf('fit_tests_status_check', table.status, FIT_TEST_STATUSES),
   oneOf('fit_tests_kind_check', table.kind, FIT_TEST_KINDS),
   index('fit_tests_organization_performed_idx').on(table.organizationId, table.performedAt),
+  // The list's total counts one line per record from this index alone, without reading the rows.
+  index('fit_tests_organization_status_idx').on(table.organizationId, table.status, table.revision),
   index('fit_tests_person_idx').on(table.personId),
   index('fit_tests_record_idx').on(table.recordId),
   uniqueIndex('fit_tests_record_revision_unique').on(table.recordId, table.revision),

@@ -1,0 +1,1 @@
+CREATE INDEX "fit_tests_organization_status_idx" ON "fit_tests" USING btree ("organization_id","status","revision");

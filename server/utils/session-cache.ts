@@ -1,0 +1,44 @@
+import type { H3Event } from 'h3'
+
+// Opening the sealed session cookie takes several Web Crypto steps (key derivation, MAC check,
+// decryption) on every request, and a server-rendered page makes several requests with the same
+// cookie. A sealed value is authenticated, so the same string always opens to the same session:
+// what it opened to is kept for a minute (never past the session's own end). Nothing about who the
+// caller is comes from here alone: `requireRole` still reads the user and their session version
+// from the database on every request, so signing out everywhere or deactivating applies at once.
+
+interface OpenedSession { id: string, createdAt: number, data: Record<string, unknown> }
+
+const KEEP_MS = 60_000
+const MAX_KEPT = 2000
+const kept = new Map<string, { session: OpenedSession, until: number }>()
+
+function sessionConfig() {
+  const { name, maxAge } = useRuntimeConfig().session as { name: string, maxAge: number }
+  return { name, maxAgeMs: maxAge * 1000 }
+}
+
+/** The sealed session this request carries in its cookie (none when it sends the session header instead). */
+function sealedOf(event: H3Event, name: string) {
+  if (getRequestHeader(event, `x-${name.toLowerCase()}-session`) !== undefined) return undefined
+  return getCookie(event, name)
+}
+
+/** The signed-in user's session, as `getUserSession` gives it, opening each sealed cookie once a minute at most. */
+export async function readUserSession(event: H3Event) {
+  const { name, maxAgeMs } = sessionConfig()
+  const sealed = sealedOf(event, name)
+  const hit = sealed ? kept.get(sealed) : undefined
+  const contexts = (event.context.sessions ??= Object.create(null)) as Record<string, OpenedSession>
+  if (hit && hit.until > Date.now() && !contexts[name]) {
+    // A copy: a session update in this request must not change what other requests read.
+    contexts[name] = structuredClone(hit.session)
+  }
+  const session = await getUserSession(event)
+  const opened = contexts[name]
+  if (sealed && !hit && opened?.id && opened.createdAt && opened.data?.user) {
+    if (kept.size >= MAX_KEPT) kept.delete(kept.keys().next().value!)
+    kept.set(sealed, { session: structuredClone({ id: opened.id, createdAt: opened.createdAt, data: opened.data }), until: Math.min(Date.now() + KEEP_MS, opened.createdAt + maxAgeMs) })
+  }
+  return session
+}
