@@ -116,8 +116,6 @@ export async function personOversight(organizationId: string, personId: string, 
   }
 }
 
-type Tx = Parameters<Parameters<Database['transaction']>[0]>[0]
-
 /**
  * A new wearer account is linked to the roster entry with the same e-mail, when exactly one
  * unlinked entry of the organization has it. Audited like a manual link.

@@ -54,6 +54,16 @@ export async function assertSiteOf(organizationId: string, siteId: string | null
   }
 }
 
-export function duplicateEmployeeNumber(employeeNumber: string) {
-  return httpError(409, `Employee number ${employeeNumber} is already on the roster.`, { fieldErrors: { employeeNumber: 'Another person has this employee number.' } })
+/** What a route sends for a person it created or changed: the roster fields, never the organization. */
+export function personView(row: PersonRow) {
+  return {
+    id: row.id, fullName: row.fullName, employeeNumber: row.employeeNumber, jobTitle: row.jobTitle, email: row.email,
+    siteId: row.siteId, userId: row.userId, medicalClearanceOn: row.medicalClearanceOn, medicalClearanceStatus: row.medicalClearanceStatus,
+    notes: row.notes, reminderOptOut: row.reminderOptOut, active: row.active
+  }
+}
+
+/** What a route sends for a medical clearance: dates, who cleared, classes and restrictions; never who typed it in or its import key. */
+export function clearanceView(row: MedicalClearanceRow) {
+  return { id: row.id, personId: row.personId, clearedOn: row.clearedOn, validUntil: row.validUntil, clearedBy: row.clearedBy, respiratorClasses: row.respiratorClasses, restrictions: row.restrictions }
 }
