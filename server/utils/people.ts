@@ -1,4 +1,4 @@
-import { and, asc, eq } from 'drizzle-orm'
+import { and, asc, eq, inArray } from 'drizzle-orm'
 import type { z } from 'zod'
 import type { listPeopleQuerySchema } from '#shared/utils/person-schemas'
 
@@ -6,6 +6,15 @@ export async function findPerson(organizationId: string, id: string): Promise<Pe
   const [row] = await useDb().select().from(schema.people).where(and(eq(schema.people.organizationId, organizationId), eq(schema.people.id, id)))
   if (!row) throw httpError(404, 'No such person in your roster.')
   return row
+}
+
+/** The roster's person ids by employee number, for the rows of an import that name people that way. */
+export async function personIdsByEmployeeNumber(organizationId: string, numbers: string[]): Promise<Map<string | null, string>> {
+  if (!numbers.length) return new Map()
+  const p = schema.people
+  const rows = await useDb().select({ id: p.id, employeeNumber: p.employeeNumber }).from(p)
+    .where(and(eq(p.organizationId, organizationId), inArray(p.employeeNumber, numbers)))
+  return new Map(rows.map(x => [x.employeeNumber, x.id]))
 }
 
 export function todayUtc() {
