@@ -111,7 +111,7 @@ export async function personOversight(organizationId: string, personId: string, 
   return {
     standing,
     dueItems: dueItemsOf(standing),
-    clearances,
+    clearances: clearances.map(clearanceView),
     reminders: reminders.map(x => ({ id: x.id, dueItem: x.dueItem, dueOn: x.dueOn, step: x.step, recipient: x.recipient, kind: x.kind, trigger: x.trigger, sentAt: x.sentAt, error: x.error, createdAt: x.createdAt }))
   }
 }
