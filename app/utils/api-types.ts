@@ -7,3 +7,11 @@ export type ApiGet<Route extends keyof InternalApi> = InternalApi[Route] extends
 export type FitTestDetail = ApiGet<'/api/fit-tests/:id'>
 /** What the "New fit test" form chooses from. */
 export type FitTestOptions = ApiGet<'/api/fit-test-options'>
+/** One account in the users table (never its password hash: the route sends `hasPassword`). */
+export type UserListRow = ApiGet<'/api/users'>[number]
+/** One counter in the equipment list, with its site's name. */
+export type CounterListRow = ApiGet<'/api/counters'>[number]
+/** One bench rig in the equipment list, with its site's name and its counter's serial. */
+export type BenchRigListRow = ApiGet<'/api/bench-rigs'>[number]
+/** One practice test as its page and editor read it. */
+export type PracticeTestDetail = ApiGet<'/api/practice-tests/:id'>

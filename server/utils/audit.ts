@@ -1,7 +1,5 @@
 import type { Caller } from './auth'
 
-type Tx = Parameters<Parameters<Database['transaction']>[0]>[0]
-
 export interface AuditEntry {
   entityType: string
   entityId: string

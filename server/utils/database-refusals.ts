@@ -27,10 +27,10 @@ const DUPLICATES: Record<string, { field: string, message: string }> = {
   users_organization_email_unique: { field: 'email', message: 'This e-mail address already has an account.' },
   people_employee_number_unique: { field: 'employeeNumber', message: 'Another person on the roster has this employee number.' },
   respirator_models_make_model_unique: { field: 'model', message: 'Your catalogue already lists this make and model.' },
-  counters_serial_unique: { field: 'serialNumber', message: 'Another counter has this serial number.' },
-  bench_rigs_serial_unique: { field: 'serialNumber', message: 'Another bench rig has this serial number.' },
+  counters_serial_unique: { field: 'serialNumber', message: 'Another counter already has this serial number.' },
+  bench_rigs_serial_unique: { field: 'serialNumber', message: 'Another bench rig already has this serial number.' },
   mask_types_organization_name_unique: { field: 'name', message: 'Another mask type has this name.' },
-  mask_units_serial_unique: { field: 'serialNumber', message: 'Another mask unit has this serial number.' },
+  mask_units_serial_unique: { field: 'serialNumber', message: 'Another mask unit already has this serial number.' },
   sites_organization_name_unique: { field: 'name', message: 'Another site has this name.' }
 }
 

@@ -6,6 +6,8 @@ import * as schema from '../database/schema'
 
 export { schema }
 export type Database = ReturnType<typeof createDatabase>
+/** The handle a `useDb().transaction(async (tx) => …)` callback receives; helpers that write beside an audit row take it. */
+export type Tx = Parameters<Parameters<Database['transaction']>[0]>[0]
 
 function createDatabase(url: string) {
   const pool = new pg.Pool({

@@ -22,7 +22,7 @@ export async function listCounters(organizationId: string, { includeRetired = fa
     .leftJoin(schema.sites, eq(schema.sites.id, c.siteId))
     .where(and(eq(c.organizationId, organizationId), includeRetired ? undefined : eq(c.active, true)))
     .orderBy(asc(c.serialNumber))
-  return rows.map(row => ({ ...counterResponse(row), siteName: row.siteName }))
+  return rows.map(row => ({ ...counterView(row), siteName: row.siteName }))
 }
 
 export async function findCounter(organizationId: string, id: string) {
@@ -39,7 +39,7 @@ export async function listBenchRigs(organizationId: string, { includeRetired = f
     .innerJoin(schema.counters, eq(schema.counters.id, r.counterId))
     .where(and(eq(r.organizationId, organizationId), includeRetired ? undefined : eq(r.active, true)))
     .orderBy(asc(r.serialNumber))
-  return rows.map(row => ({ ...benchRigResponse(row), siteName: row.siteName, counterSerial: row.counterSerial }))
+  return rows.map(row => ({ ...benchRigView(row), siteName: row.siteName, counterSerial: row.counterSerial }))
 }
 
 export async function findBenchRig(organizationId: string, id: string) {
@@ -47,15 +47,6 @@ export async function findBenchRig(organizationId: string, id: string) {
   const [row] = await useDb().select().from(r).where(and(eq(r.organizationId, organizationId), eq(r.id, id)))
   if (!row) throw httpError(404, 'No such bench rig in your organization.')
   return row
-}
-
-/** A duplicate serial is a 409 on the serial field, so the form shows it beside the field. */
-export function duplicateSerial(error: unknown, what: string): never {
-  const code = (error as { code?: string, cause?: { code?: string } })?.cause?.code ?? (error as { code?: string })?.code
-  if (code === '23505') {
-    throw httpError(409, `Another ${what} already has this serial number.`, { fieldErrors: { serialNumber: `Another ${what} already has this serial number.` } })
-  }
-  throw error
 }
 
 /** A rig may only be paired with an active counter of the same organization. */
@@ -68,7 +59,7 @@ export async function assertPairableCounter(organizationId: string, counterId: s
 }
 
 /** What a route sends for a counter: the fields a page shows, never the whole row. */
-export function counterResponse(row: CounterRow) {
+export function counterView(row: CounterRow) {
   return {
     id: row.id,
     serialNumber: row.serialNumber,
@@ -81,6 +72,6 @@ export function counterResponse(row: CounterRow) {
 }
 
 /** What a route sends for a bench rig: the fields a page shows, never the whole row. */
-export function benchRigResponse(row: BenchRigRow) {
+export function benchRigView(row: BenchRigRow) {
   return { id: row.id, serialNumber: row.serialNumber, description: row.description, counterId: row.counterId, siteId: row.siteId, active: row.active }
 }

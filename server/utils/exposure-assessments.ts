@@ -202,3 +202,12 @@ export async function protectionGaps(organizationId: string, today: string, pers
   }
   return gaps
 }
+
+/** What a route sends for one assessment revision: its own fields, never the organization or user ids (the names go beside it). */
+export function assessmentView(row: ExposureAssessmentRow) {
+  return {
+    id: row.id, recordId: row.recordId, revision: row.revision, revisionReason: row.revisionReason, status: row.status, version: row.version,
+    title: row.title, siteId: row.siteId, ruleSet: row.ruleSet, input: row.input, chosenClassKeys: row.chosenClassKeys, rationale: row.rationale,
+    requiredProtectionFactor: row.requiredProtectionFactor, idlhAtmosphere: row.idlhAtmosphere, signedOffAt: row.signedOffAt
+  }
+}

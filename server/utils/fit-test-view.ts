@@ -28,9 +28,8 @@ function viewOf(record: FitTestRecord, org: Awaited<ReturnType<typeof findOrgani
     ? decideCoverage({ counterId: row.counterId, benchRigId: null, performedAt: row.performedAt, timeZone: site.timeZone }, record.coverageChecks, counter ? { calibrationDueOn: counter.calibrationDueOn } : null)
     : null
   const card = cardOf(record)
-  const { evaluation: _stored, ...fields } = row
   return {
-    ...fields,
+    ...fitTestFields(row),
     seriesText: row.status === 'draft' ? row.seriesText : null,
     hasSeries: record.hasSeries,
     person: person ? { id: person.id, fullName: person.fullName, employeeNumber: person.employeeNumber, jobTitle: person.jobTitle } : null,
@@ -77,6 +76,23 @@ export async function assertMayRead(caller: Caller, row: FitTestRow) {
  * not the series the client has just sent, nor the relations it already shows.
  */
 export function draftSaved(row: FitTestRow, evaluation: Evaluation | null) {
-  const { seriesText, evaluation: _stored, ...fields } = row
-  return { ...fields, hasSeries: Boolean(seriesText), result: evaluation?.result ?? null, seriesIssues: evaluation?.seriesIssues ?? [] }
+  return { ...fitTestFields(row), hasSeries: Boolean(row.seriesText), result: evaluation?.result ?? null, seriesIssues: evaluation?.seriesIssues ?? [] }
+}
+
+/**
+ * A revision's own fields as a route sends them: never the organization, the idempotency key, the
+ * stored evaluation (the result goes beside it) or the raw series (each caller decides).
+ */
+function fitTestFields(row: FitTestRow) {
+  return {
+    id: row.id, recordId: row.recordId, revision: row.revision, revisionReason: row.revisionReason, status: row.status, version: row.version,
+    personId: row.personId, siteId: row.siteId, counterId: row.counterId, maskUnitId: row.maskUnitId,
+    respiratorModelId: row.respiratorModelId, respiratorMake: row.respiratorMake, respiratorModel: row.respiratorModel,
+    respiratorClass: row.respiratorClass, respiratorSize: row.respiratorSize,
+    kind: row.kind, protocolKey: row.protocolKey, protocol: row.protocol, sampleFlowCm3PerMin: row.sampleFlowCm3PerMin,
+    performedAt: row.performedAt, preTest: row.preTest, entry: row.entry, seriesSha256: row.seriesSha256,
+    passLevel: row.passLevel, overallFitFactor: row.overallFitFactor, overallIsLowerBound: row.overallIsLowerBound, passed: row.passed,
+    limitingExerciseKey: row.limitingExerciseKey, dueOn: row.dueOn, finishedAt: row.finishedAt,
+    withdrawnReason: row.withdrawnReason, discardedReason: row.discardedReason, retestOfRecordId: row.retestOfRecordId, clearanceAtStart: row.clearanceAtStart
+  }
 }

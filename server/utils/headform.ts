@@ -1,4 +1,4 @@
-import { and, desc, eq, getTableColumns } from 'drizzle-orm'
+import { and, desc, eq } from 'drizzle-orm'
 import { computeHeadformTest, resolveHeadformPassLevel } from '#shared/utils/compute'
 import type { HeadformTestForm } from '#shared/utils/mask-schemas'
 import { subChecksFor } from '#shared/utils/mask-schemas'
@@ -22,8 +22,24 @@ export function computeStoredHeadform(row: Pick<HeadformRow, 'outside' | 'inside
 
 export async function listHeadformTests(organizationId: string, filter: { maskUnitId?: string, limit?: number }) {
   const h = schema.headformTests
+  // The test's own fields (never the organization), the mask type's parts that decide its sub-checks, and the names it shows.
   const rows = await useDb().select({
-    ...getTableColumns(h),
+    id: h.id,
+    maskUnitId: h.maskUnitId,
+    benchRigId: h.benchRigId,
+    counterId: h.counterId,
+    siteId: h.siteId,
+    performedAt: h.performedAt,
+    performedBy: h.performedBy,
+    outside: h.outside,
+    inside: h.inside,
+    sampleSeconds: h.sampleSeconds,
+    sampleFlowCm3PerMin: h.sampleFlowCm3PerMin,
+    passLevel: h.passLevel,
+    passLevelIsDefault: h.passLevelIsDefault,
+    subChecks: h.subChecks,
+    passed: h.passed,
+    notes: h.notes,
     hasDrinkTube: schema.maskTypes.hasDrinkTube,
     hasExhalationValve: schema.maskTypes.hasExhalationValve,
     serialNumber: schema.maskUnits.serialNumber,

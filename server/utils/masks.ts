@@ -1,11 +1,17 @@
-import { and, asc, desc, eq, getTableColumns, gt, sql } from 'drizzle-orm'
+import { and, asc, desc, eq, gt, sql } from 'drizzle-orm'
 import type { z } from 'zod'
 import { MASK_UNIT_STATE_LABELS } from '#shared/utils/mask-schemas'
 import type { listMaskUnitsQuerySchema, MaskUnitState } from '#shared/utils/mask-schemas'
 
 export async function listMaskTypes(organizationId: string) {
   const t = schema.maskTypes
-  return useDb().select().from(t).where(eq(t.organizationId, organizationId)).orderBy(asc(t.name))
+  const rows = await useDb().select().from(t).where(eq(t.organizationId, organizationId)).orderBy(asc(t.name))
+  return rows.map(maskTypeView)
+}
+
+/** What a route sends for a mask type: the fields the pages show, never the whole row. */
+export function maskTypeView(row: MaskTypeRow) {
+  return { id: row.id, name: row.name, hasDrinkTube: row.hasDrinkTube, hasExhalationValve: row.hasExhalationValve, headformPassLevel: row.headformPassLevel, headformRetestDays: row.headformRetestDays }
 }
 
 export async function findMaskType(organizationId: string, id: string) {
@@ -17,8 +23,16 @@ export async function findMaskType(organizationId: string, id: string) {
 
 const DAY_MS = 86_400_000
 
+const u = schema.maskUnits
+/** What a route sends for a mask unit: its own fields (never the organization) and what it shows beside them. */
 const unitColumns = {
-  ...getTableColumns(schema.maskUnits),
+  id: u.id,
+  serialNumber: u.serialNumber,
+  respiratorModelId: u.respiratorModelId,
+  maskTypeId: u.maskTypeId,
+  size: u.size,
+  siteId: u.siteId,
+  state: u.state,
   make: schema.respiratorModels.make,
   model: schema.respiratorModels.model,
   maskTypeName: schema.maskTypes.name,
@@ -35,7 +49,6 @@ export function headformDueOn(lastHeadformAt: string | Date | null, retestDays: 
 }
 
 function unitQuery() {
-  const u = schema.maskUnits
   return useDb().select(unitColumns).from(u)
     .innerJoin(schema.respiratorModels, eq(schema.respiratorModels.id, u.respiratorModelId))
     .innerJoin(schema.maskTypes, eq(schema.maskTypes.id, u.maskTypeId))
@@ -50,7 +63,6 @@ const withDue = (row: UnitRow) => ({
 })
 
 export async function listMaskUnits(organizationId: string, query: z.output<typeof listMaskUnitsQuerySchema>) {
-  const u = schema.maskUnits
   const rows = await unitQuery()
     .where(and(eq(u.organizationId, organizationId), query.state ? eq(u.state, query.state) : undefined, query.maskTypeId ? eq(u.maskTypeId, query.maskTypeId) : undefined))
     .orderBy(asc(u.serialNumber))
@@ -58,7 +70,6 @@ export async function listMaskUnits(organizationId: string, query: z.output<type
 }
 
 export async function findMaskUnit(organizationId: string, id: string) {
-  const u = schema.maskUnits
   const [row] = await unitQuery().where(and(eq(u.organizationId, organizationId), eq(u.id, id)))
   if (!row) throw httpError(404, 'No such mask unit in your organization.')
   return withDue(row)
@@ -66,7 +77,10 @@ export async function findMaskUnit(organizationId: string, id: string) {
 
 export async function listUnitEvents(organizationId: string, maskUnitId: string) {
   const e = schema.maskUnitEvents
-  return useDb().select({ ...getTableColumns(e), actorName: schema.users.displayName }).from(e)
+  return useDb().select({
+    id: e.id, fromState: e.fromState, toState: e.toState, reason: e.reason, headformTestId: e.headformTestId,
+    override: e.override, at: e.at, actorName: schema.users.displayName
+  }).from(e)
     .leftJoin(schema.users, eq(schema.users.id, e.actorUserId))
     .where(and(eq(e.organizationId, organizationId), eq(e.maskUnitId, maskUnitId)))
     .orderBy(desc(e.at))
@@ -87,8 +101,6 @@ export async function assertUnitRefs(organizationId: string, input: { respirator
   }
   await assertSite(organizationId, input.siteId)
 }
-
-type Tx = Parameters<Parameters<Database['transaction']>[0]>[0]
 
 /** Moves a unit to a new state and keeps the change, with its reason, in the unit's history. */
 export async function changeUnitState(tx: Tx, caller: Caller, unit: { id: string, state: MaskUnitState }, to: MaskUnitState, reason: string, headformTestId: string | null = null, override = false) {

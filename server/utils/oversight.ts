@@ -108,7 +108,6 @@ export function dueItemsOf(standing: PersonStanding): DueItem[] {
   return items
 }
 
-type Tx = Parameters<Parameters<Database['transaction']>[0]>[0]
 
 /**
  * A new wearer account is linked to the roster entry with the same e-mail, when exactly one

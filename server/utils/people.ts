@@ -1,4 +1,4 @@
-import { and, asc, eq } from 'drizzle-orm'
+import { and, asc, eq, inArray } from 'drizzle-orm'
 import type { z } from 'zod'
 import type { listPeopleQuerySchema } from '#shared/utils/person-schemas'
 
@@ -6,6 +6,15 @@ export async function findPerson(organizationId: string, id: string): Promise<Pe
   const [row] = await useDb().select().from(schema.people).where(and(eq(schema.people.organizationId, organizationId), eq(schema.people.id, id)))
   if (!row) throw httpError(404, 'No such person in your roster.')
   return row
+}
+
+/** The roster's person ids by employee number, for the rows of an import that name people that way. */
+export async function personIdsByEmployeeNumber(organizationId: string, numbers: string[]): Promise<Map<string | null, string>> {
+  if (!numbers.length) return new Map()
+  const p = schema.people
+  const rows = await useDb().select({ id: p.id, employeeNumber: p.employeeNumber }).from(p)
+    .where(and(eq(p.organizationId, organizationId), inArray(p.employeeNumber, numbers)))
+  return new Map(rows.map(x => [x.employeeNumber, x.id]))
 }
 
 export function todayUtc() {
@@ -54,6 +63,16 @@ export async function assertSiteOf(organizationId: string, siteId: string | null
   }
 }
 
-export function duplicateEmployeeNumber(employeeNumber: string) {
-  return httpError(409, `Employee number ${employeeNumber} is already on the roster.`, { fieldErrors: { employeeNumber: 'Another person has this employee number.' } })
+/** What a route sends for a person it created or changed: the roster fields, never the organization. */
+export function personView(row: PersonRow) {
+  return {
+    id: row.id, fullName: row.fullName, employeeNumber: row.employeeNumber, jobTitle: row.jobTitle, email: row.email,
+    siteId: row.siteId, userId: row.userId, medicalClearanceOn: row.medicalClearanceOn, medicalClearanceStatus: row.medicalClearanceStatus,
+    notes: row.notes, reminderOptOut: row.reminderOptOut, active: row.active
+  }
+}
+
+/** What a route sends for a medical clearance: dates, who cleared, classes and restrictions; never who typed it in or its import key. */
+export function clearanceView(row: MedicalClearanceRow) {
+  return { id: row.id, personId: row.personId, clearedOn: row.clearedOn, validUntil: row.validUntil, clearedBy: row.clearedBy, respiratorClasses: row.respiratorClasses, restrictions: row.restrictions }
 }

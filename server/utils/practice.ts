@@ -33,7 +33,17 @@ export async function listPracticeSets(organizationId: string) {
   const people = await db.select({ setId: schema.practicePeople.practiceSetId, n: count() }).from(schema.practicePeople).where(eq(schema.practicePeople.organizationId, organizationId)).groupBy(schema.practicePeople.practiceSetId)
   const tests = await db.select({ setId: schema.practiceTests.practiceSetId, n: count() }).from(schema.practiceTests).where(eq(schema.practiceTests.organizationId, organizationId)).groupBy(schema.practiceTests.practiceSetId)
   const of = (rows: { setId: string, n: number }[], id: string) => rows.find(r => r.setId === id)?.n ?? 0
-  return sets.map(s => ({ id: s.id, name: s.name, createdAt: s.createdAt, people: of(people, s.id), tests: of(tests, s.id) }))
+  return sets.map(s => ({ ...practiceSetView(s), people: of(people, s.id), tests: of(tests, s.id) }))
+}
+
+/** What a route sends for a practice set: never the organization or who created it. */
+export function practiceSetView(row: PracticeSetRow) {
+  return { id: row.id, name: row.name, createdAt: row.createdAt }
+}
+
+/** What a route sends for a practice person. */
+export function practicePersonView(row: PracticePersonRow) {
+  return { id: row.id, practiceSetId: row.practiceSetId, fullName: row.fullName }
 }
 
 /** The server's own result for a practice test, from the raw inputs only (the same path as a real test). */
@@ -54,7 +64,23 @@ export async function practiceTestView(organizationId: string, row: PracticeTest
   const org = await findOrganization(organizationId)
   const { evaluation } = evaluatePractice(row)
   return {
-    ...row,
+    id: row.id,
+    practiceSetId: row.practiceSetId,
+    practicePersonId: row.practicePersonId,
+    status: row.status,
+    version: row.version,
+    respiratorClass: row.respiratorClass,
+    protocolKey: row.protocolKey,
+    protocol: row.protocol,
+    sampleFlowCm3PerMin: row.sampleFlowCm3PerMin,
+    entry: row.entry,
+    seriesText: row.seriesText,
+    passLevel: row.passLevel,
+    overallFitFactor: row.overallFitFactor,
+    overallIsLowerBound: row.overallIsLowerBound,
+    passed: row.passed,
+    finishedAt: row.finishedAt,
+    createdAt: row.createdAt,
     practice: true as const,
     person: { id: person.id, fullName: person.fullName },
     set: { id: set.id, name: set.name },

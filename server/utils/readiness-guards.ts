@@ -4,8 +4,6 @@ import { and, eq } from 'drizzle-orm'
 import { evaluateAcceptanceRule } from '#shared/utils/compute'
 import type { RecordStep, ReadinessStep, StartReadinessCheck, StepEntry } from '#shared/utils/readiness-schemas'
 
-type Tx = Parameters<Parameters<Database['transaction']>[0]>[0]
-
 /** Steps the mask type on the headform lacks the part for. */
 export function skippedStepsFor(steps: ReadinessStep[], maskType: { hasDrinkTube: boolean, hasExhalationValve: boolean } | null) {
   if (!maskType) return []

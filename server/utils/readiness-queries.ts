@@ -1,6 +1,6 @@
 // Readiness checks and templates: the reads, always scoped to the caller's organization.
 // The rules a check follows (planning, locking, one step at a time) are in readiness-guards.ts.
-import { and, asc, desc, eq, getTableColumns } from 'drizzle-orm'
+import { and, asc, desc, eq } from 'drizzle-orm'
 import type { z } from 'zod'
 import { DEFAULT_TEMPLATES } from '#shared/utils/readiness-defaults'
 import type { listChecksQuerySchema } from '#shared/utils/readiness-schemas'
@@ -16,7 +16,13 @@ export async function ensureDefaultTemplates(organizationId: string) {
 export async function listTemplates(organizationId: string) {
   await ensureDefaultTemplates(organizationId)
   const t = schema.readinessTemplates
-  return useDb().select().from(t).where(eq(t.organizationId, organizationId)).orderBy(desc(t.active), asc(t.scope), asc(t.name))
+  const rows = await useDb().select().from(t).where(eq(t.organizationId, organizationId)).orderBy(desc(t.active), asc(t.scope), asc(t.name))
+  return rows.map(readinessTemplateView)
+}
+
+/** What a route sends for a readiness template: the fields the pages show, never the whole row. */
+export function readinessTemplateView(row: ReadinessTemplateRow) {
+  return { id: row.id, name: row.name, scope: row.scope, steps: row.steps, isDefault: row.isDefault, active: row.active }
 }
 
 export async function findTemplate(organizationId: string, id: string) {
@@ -26,8 +32,25 @@ export async function findTemplate(organizationId: string, id: string) {
   return row
 }
 
+const c = schema.readinessChecks
+/** What a route sends for a readiness check: its own fields (never the organization) and the names it shows. */
 const checkColumns = {
-  ...getTableColumns(schema.readinessChecks),
+  id: c.id,
+  templateId: c.templateId,
+  templateName: c.templateName,
+  counterId: c.counterId,
+  benchRigId: c.benchRigId,
+  siteId: c.siteId,
+  maskTypeId: c.maskTypeId,
+  steps: c.steps,
+  skippedSteps: c.skippedSteps,
+  entries: c.entries,
+  currentStep: c.currentStep,
+  status: c.status,
+  abandonReason: c.abandonReason,
+  startedAt: c.startedAt,
+  completedAt: c.completedAt,
+  performedBy: c.performedBy,
   counterSerial: schema.counters.serialNumber,
   benchRigSerial: schema.benchRigs.serialNumber,
   maskTypeName: schema.maskTypes.name,
@@ -36,7 +59,6 @@ const checkColumns = {
 }
 
 function checkQuery() {
-  const c = schema.readinessChecks
   return useDb().select(checkColumns).from(c)
     .innerJoin(schema.counters, eq(schema.counters.id, c.counterId))
     .leftJoin(schema.benchRigs, eq(schema.benchRigs.id, c.benchRigId))
@@ -46,7 +68,6 @@ function checkQuery() {
 }
 
 export async function listChecks(organizationId: string, query: z.output<typeof listChecksQuerySchema>) {
-  const c = schema.readinessChecks
   return checkQuery()
     .where(and(
       eq(c.organizationId, organizationId),
@@ -59,7 +80,6 @@ export async function listChecks(organizationId: string, query: z.output<typeof 
 }
 
 export async function findCheck(organizationId: string, id: string) {
-  const c = schema.readinessChecks
   const [row] = await checkQuery().where(and(eq(c.organizationId, organizationId), eq(c.id, id)))
   if (!row) throw httpError(404, 'No such readiness check in your organization.')
   return row

@@ -2,9 +2,15 @@ import { and, asc, eq } from 'drizzle-orm'
 
 export async function listRespiratorModels(organizationId: string, { includeRetired = false } = {}) {
   const r = schema.respiratorModels
-  return useDb().select().from(r)
+  const rows = await useDb().select().from(r)
     .where(and(eq(r.organizationId, organizationId), includeRetired ? undefined : eq(r.active, true)))
     .orderBy(asc(r.make), asc(r.model))
+  return rows.map(respiratorModelView)
+}
+
+/** What a route sends for a catalogue entry: the fields the pages show, never the whole row. */
+export function respiratorModelView(row: RespiratorModelRow) {
+  return { id: row.id, make: row.make, model: row.model, respiratorClass: row.respiratorClass, sizes: row.sizes, notes: row.notes, active: row.active }
 }
 
 /** One catalogue entry of the organization, or 404. */

@@ -15,6 +15,6 @@ export default defineEventHandler(async (event) => {
       .returning()
     const action = changes.active === false ? 'retired' : changes.active === true && !before.active ? 'reinstated' : 'updated'
     await writeAudit(tx, caller, { entityType: 'bench-rig', entityId: id, action, before, after: changes })
-    return benchRigResponse(row!)
-  }).catch(error => duplicateSerial(error, 'bench rig'))
+    return benchRigView(row!)
+  })
 })

@@ -9,7 +9,7 @@ export default defineEventHandler(async (event) => {
     const [row] = await tx.insert(schema.benchRigs).values({ ...input, organizationId: caller.organizationId }).returning()
     await writeAudit(tx, caller, { entityType: 'bench-rig', entityId: row!.id, action: 'created', after: input })
     return row!
-  }).catch(error => duplicateSerial(error, 'bench rig'))
+  })
   setResponseStatus(event, 201)
-  return benchRigResponse(created)
+  return benchRigView(created)
 })

@@ -3,5 +3,5 @@ import { idParamSchema } from '#shared/utils/user-schemas'
 export default defineEventHandler(async (event) => {
   const caller = await requireRole(event, 'read-program')
   const { id } = parseParams(event, idParamSchema)
-  return counterResponse(await findCounter(caller.organizationId, id))
+  return counterView(await findCounter(caller.organizationId, id))
 })

@@ -14,6 +14,6 @@ export default defineEventHandler(async (event) => {
       .returning()
     const action = changes.active === false ? 'retired' : changes.active === true && !before.active ? 'reinstated' : 'updated'
     await writeAudit(tx, caller, { entityType: 'counter', entityId: id, action, before, after: changes })
-    return counterResponse(row!)
-  }).catch(error => duplicateSerial(error, 'counter'))
+    return counterView(row!)
+  })
 })

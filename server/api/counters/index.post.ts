@@ -8,7 +8,7 @@ export default defineEventHandler(async (event) => {
     const [row] = await tx.insert(schema.counters).values({ ...input, organizationId: caller.organizationId }).returning()
     await writeAudit(tx, caller, { entityType: 'counter', entityId: row!.id, action: 'created', after: input })
     return row!
-  }).catch(error => duplicateSerial(error, 'counter'))
+  })
   setResponseStatus(event, 201)
-  return counterResponse(created)
+  return counterView(created)
 })

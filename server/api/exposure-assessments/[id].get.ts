@@ -16,7 +16,7 @@ export default defineEventHandler(async (event) => {
   ])
   return {
     assessment: {
-      ...row,
+      ...assessmentView(row),
       siteName: sites.find(s => s.id === row.siteId)?.name ?? null,
       createdBy: names.get(row.createdByUserId) ?? null,
       signedOffBy: row.signedOffByUserId ? names.get(row.signedOffByUserId) ?? null : null

@@ -1,5 +1,3 @@
-import { createHash } from 'node:crypto'
-import { and, eq, inArray } from 'drizzle-orm'
 import { RESPIRATOR_CLASSES } from '#shared/utils/compute'
 import { importClearanceRowSchema, importRowsSchema } from '#shared/utils/oversight-schemas'
 
@@ -10,19 +8,10 @@ import { importClearanceRowSchema, importRowsSchema } from '#shared/utils/oversi
 export default defineEventHandler(async (event) => {
   const caller = await requireRole(event, 'record')
   const { rows, firstRow = 2 } = await parseBody(event, importRowsSchema)
-  const p = schema.people
   const parsed = rows.map(raw => importClearanceRowSchema.safeParse(raw))
-  const numbers = parsed.flatMap(r => r.success ? [r.data.employeeNumber] : [])
-  const people = numbers.length ? await useDb().select({ id: p.id, employeeNumber: p.employeeNumber }).from(p).where(and(eq(p.organizationId, caller.organizationId), inArray(p.employeeNumber, numbers))) : []
-  const personByNumber = new Map(people.map(x => [x.employeeNumber, x.id]))
+  const personByNumber = await personIdsByEmployeeNumber(caller.organizationId, parsed.flatMap(r => r.success ? [r.data.employeeNumber] : []))
   const classByName = new Map(RESPIRATOR_CLASSES.flatMap(c => [[c.key, c.key], [c.label.toLowerCase(), c.key]]))
-  const errors: { row: number, messages: string[] }[] = []
-  const good: (typeof schema.medicalClearances.$inferInsert)[] = []
-  parsed.forEach((result, i) => {
-    const row = firstRow + i
-    if (!result.success) return errors.push({ row, messages: result.error.issues.map(x => x.message) })
-    const r = result.data
-    const messages: string[] = []
+  const { errors, good } = sortImportRows(parsed, firstRow, (r, messages): typeof schema.medicalClearances.$inferInsert | undefined => {
     const personId = personByNumber.get(r.employeeNumber)
     if (!personId) messages.push(`Employee number ${r.employeeNumber} is not on the roster.`)
     const names = r.respiratorClasses.split(';').map(s => s.trim().toLowerCase()).filter(Boolean)
@@ -31,10 +20,10 @@ export default defineEventHandler(async (event) => {
     const unknown = names.filter((_, k) => !classes[k])
     if (unknown.length) messages.push(`Respirator class "${unknown[0]}" is not one we know: use ${RESPIRATOR_CLASSES.map(c => c.key).join(', ')}.`)
     if (r.validUntil && r.validUntil < r.clearedOn) messages.push('Valid until: cannot be before the clearance date.')
-    if (messages.length) return errors.push({ row, messages })
+    if (messages.length) return undefined
     const respiratorClasses = [...new Set(classes as string[])].sort()
-    const importKey = createHash('sha256').update([personId, r.clearedOn, r.validUntil ?? '', r.clearedBy, respiratorClasses.join(','), r.restrictions ?? ''].join('|')).digest('hex')
-    good.push({ organizationId: caller.organizationId, personId: personId!, clearedOn: r.clearedOn, validUntil: r.validUntil ?? null, clearedBy: r.clearedBy, respiratorClasses, restrictions: r.restrictions || null, importKey, recordedByUserId: caller.id })
+    const importKey = importKeyOf([personId, r.clearedOn, r.validUntil, r.clearedBy, respiratorClasses.join(','), r.restrictions])
+    return { organizationId: caller.organizationId, personId: personId!, clearedOn: r.clearedOn, validUntil: r.validUntil ?? null, clearedBy: r.clearedBy, respiratorClasses, restrictions: r.restrictions || null, importKey, recordedByUserId: caller.id }
   })
   const added = await useDb().transaction(async (tx) => {
     const inserted = good.length ? await tx.insert(schema.medicalClearances).values(good).onConflictDoNothing().returning({ id: schema.medicalClearances.id }) : []

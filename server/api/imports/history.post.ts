@@ -1,7 +1,5 @@
-import { createHash } from 'node:crypto'
-import { and, eq, inArray } from 'drizzle-orm'
+import { eq } from 'drizzle-orm'
 import { readTypedNumber } from '#shared/utils/number-reader'
-import type { DecimalMark } from '#shared/utils/number-reader'
 import { importedDueOn } from '#shared/utils/oversight'
 import { importHistoryRowSchema, importRowsSchema } from '#shared/utils/oversight-schemas'
 
@@ -14,21 +12,12 @@ export default defineEventHandler(async (event) => {
   const caller = await requireRole(event, 'record')
   const { rows, firstRow = 2 } = await parseBody(event, importRowsSchema)
   const org = await findOrganization(caller.organizationId)
-  const decimalMark = ((org.settings as { decimalMark?: DecimalMark }).decimalMark) ?? 'point'
-  const p = schema.people
+  const decimalMark = decimalMarkOf(org)
   const models = await useDb().select().from(schema.respiratorModels).where(eq(schema.respiratorModels.organizationId, caller.organizationId))
   const modelByName = new Map(models.map(m => [`${m.make} ${m.model}`.toLowerCase(), m]))
   const parsed = rows.map(raw => importHistoryRowSchema.safeParse(raw))
-  const numbers = parsed.flatMap(r => r.success ? [r.data.employeeNumber] : [])
-  const people = numbers.length ? await useDb().select({ id: p.id, employeeNumber: p.employeeNumber }).from(p).where(and(eq(p.organizationId, caller.organizationId), inArray(p.employeeNumber, numbers))) : []
-  const personByNumber = new Map(people.map(x => [x.employeeNumber, x.id]))
-  const errors: { row: number, messages: string[] }[] = []
-  const good: (typeof schema.fitHistoryEntries.$inferInsert)[] = []
-  parsed.forEach((result, i) => {
-    const row = firstRow + i
-    if (!result.success) return errors.push({ row, messages: result.error.issues.map(x => x.message) })
-    const r = result.data
-    const messages: string[] = []
+  const personByNumber = await personIdsByEmployeeNumber(caller.organizationId, parsed.flatMap(r => r.success ? [r.data.employeeNumber] : []))
+  const { errors, good } = sortImportRows(parsed, firstRow, (r, messages): typeof schema.fitHistoryEntries.$inferInsert | undefined => {
     const personId = personByNumber.get(r.employeeNumber)
     if (!personId) messages.push(`Employee number ${r.employeeNumber} is not on the roster: import the person first.`)
     const model = modelByName.get(r.respirator.toLowerCase())
@@ -42,13 +31,13 @@ export default defineEventHandler(async (event) => {
       else overallFitFactor = reading.value
     }
     if (r.testedOn > todayUtc()) messages.push('Last test date: is in the future.')
-    if (messages.length) return errors.push({ row, messages })
-    const key = createHash('sha256').update([personId, r.testedOn, model!.id, r.size, r.result, overallFitFactor ?? ''].join('|')).digest('hex')
-    good.push({
+    if (messages.length) return undefined
+    const key = importKeyOf([personId, r.testedOn, model!.id, r.size, r.result, overallFitFactor])
+    return {
       organizationId: caller.organizationId, personId: personId!, testedOn: r.testedOn, respiratorModelId: model!.id, respiratorMake: model!.make,
       respiratorModel: model!.model, respiratorClass: model!.respiratorClass, respiratorSize: r.size, passed: r.result, overallFitFactor,
       testerName: r.tester || null, dueOn: importedDueOn(r.testedOn, r.result === 'pass', org.settings.retestIntervalMonths), importKey: key, importedByUserId: caller.id
-    })
+    }
   })
   const added = await useDb().transaction(async (tx) => {
     const inserted = good.length ? await tx.insert(schema.fitHistoryEntries).values(good).onConflictDoNothing().returning({ id: schema.fitHistoryEntries.id }) : []

@@ -12,6 +12,6 @@ export default defineEventHandler(async (event) => {
       .where(and(eq(schema.maskTypes.organizationId, caller.organizationId), eq(schema.maskTypes.id, id)))
       .returning()
     await writeAudit(tx, caller, { entityType: 'mask-type', entityId: id, action: 'updated', before, after: changes })
-    return row!
+    return maskTypeView(row!)
   })
 })

@@ -7,10 +7,7 @@ export default defineEventHandler(async (event) => {
     const [row] = await tx.insert(schema.maskTypes).values({ ...input, organizationId: caller.organizationId }).returning()
     await writeAudit(tx, caller, { entityType: 'mask-type', entityId: row!.id, action: 'created', after: input })
     return row!
-  }).catch((error) => {
-    if (error?.cause?.code === '23505') throw httpError(409, 'A mask type with this name already exists.', { fieldErrors: { name: 'A mask type with this name already exists.' } })
-    throw error
   })
   setResponseStatus(event, 201)
-  return created
+  return maskTypeView(created)
 })

@@ -12,6 +12,6 @@ export default defineEventHandler(async (event) => {
     await tx.update(schema.maskUnits).set(changes)
       .where(and(eq(schema.maskUnits.organizationId, caller.organizationId), eq(schema.maskUnits.id, id)))
     await writeAudit(tx, caller, { entityType: 'mask-unit', entityId: id, action: 'updated', before, after: changes })
-  }).catch(error => duplicateSerial(error, 'mask unit'))
+  })
   return findMaskUnit(caller.organizationId, id)
 })

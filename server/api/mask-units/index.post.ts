@@ -9,7 +9,7 @@ export default defineEventHandler(async (event) => {
     await tx.insert(schema.maskUnitEvents).values({ organizationId: caller.organizationId, maskUnitId: row!.id, fromState: null, toState: 'in-service', reason: 'Added to the register', actorUserId: caller.id })
     await writeAudit(tx, caller, { entityType: 'mask-unit', entityId: row!.id, action: 'created', after: input })
     return row!.id
-  }).catch(error => duplicateSerial(error, 'mask unit'))
+  })
   setResponseStatus(event, 201)
   return findMaskUnit(caller.organizationId, id)
 })

@@ -9,16 +9,12 @@ export default defineEventHandler(async (event) => {
   // Only the fields the body carries change; everything else stays as it was.
   const changes = Object.fromEntries(Object.entries(parsed).filter(([, v]) => v !== undefined)) as typeof parsed
   const before = await findPerson(caller.organizationId, id)
-  if (Object.keys(changes).length === 0) return before
+  if (Object.keys(changes).length === 0) return personView(before)
   await assertSiteOf(caller.organizationId, changes.siteId)
   const p = schema.people
   return useDb().transaction(async (tx) => {
     const [row] = await tx.update(p).set(changes).where(and(eq(p.organizationId, caller.organizationId), eq(p.id, id))).returning()
-      .catch((error: { cause?: { code?: string } }) => {
-        if (error.cause?.code === '23505') throw duplicateEmployeeNumber(changes.employeeNumber ?? '')
-        throw error
-      })
     await writeAudit(tx, caller, { entityType: 'person', entityId: id, action: 'updated', before, after: changes })
-    return row!
+    return personView(row!)
   })
 })

@@ -5,12 +5,11 @@ export default defineEventHandler(async (event) => {
   const input = await parseBody(event, personSchema)
   await assertSiteOf(caller.organizationId, input.siteId)
   const person = await useDb().transaction(async (tx) => {
-    const [row] = await tx.insert(schema.people).values({ ...input, organizationId: caller.organizationId })
-      .onConflictDoNothing().returning()
-    if (!row) throw duplicateEmployeeNumber(input.employeeNumber ?? '')
-    await writeAudit(tx, caller, { entityType: 'person', entityId: row.id, action: 'created', after: input })
-    return row
+    // A taken employee number is refused by its unique index (server/utils/database-refusals.ts).
+    const [row] = await tx.insert(schema.people).values({ ...input, organizationId: caller.organizationId }).returning()
+    await writeAudit(tx, caller, { entityType: 'person', entityId: row!.id, action: 'created', after: input })
+    return row!
   })
   setResponseStatus(event, 201)
-  return person
+  return personView(person)
 })

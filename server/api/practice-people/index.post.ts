@@ -10,5 +10,5 @@ export default defineEventHandler(async (event) => {
     return person!
   })
   setResponseStatus(event, 201)
-  return row
+  return practicePersonView(row)
 })

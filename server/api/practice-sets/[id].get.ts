@@ -15,5 +15,5 @@ export default defineEventHandler(async (event) => {
     traineeName: schema.users.displayName
   }).from(t).innerJoin(schema.users, eq(schema.users.id, t.traineeUserId))
     .where(and(eq(t.organizationId, caller.organizationId), eq(t.practiceSetId, id))).orderBy(desc(t.createdAt))
-  return { ...set, people, tests, practice: true }
+  return { ...practiceSetView(set), people, tests, practice: true as const }
 })

@@ -9,5 +9,5 @@ export default defineEventHandler(async (event) => {
     return set!
   })
   setResponseStatus(event, 201)
-  return row
+  return practiceSetView(row)
 })

@@ -18,6 +18,6 @@ export default defineEventHandler(async (event) => {
       .where(and(eq(schema.readinessTemplates.organizationId, caller.organizationId), eq(schema.readinessTemplates.id, id)))
       .returning()
     await writeAudit(tx, caller, { entityType: 'readiness-template', entityId: id, action: changes.active === false ? 'retired' : 'updated', before, after: changes })
-    return row!
+    return readinessTemplateView(row!)
   })
 })

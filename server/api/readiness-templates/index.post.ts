@@ -9,5 +9,5 @@ export default defineEventHandler(async (event) => {
     return row!
   })
   setResponseStatus(event, 201)
-  return created
+  return readinessTemplateView(created)
 })

@@ -11,6 +11,6 @@ export default defineEventHandler(async (event) => {
   return useDb().transaction(async (tx) => {
     const [row] = await tx.update(r).set(changes).where(and(eq(r.organizationId, caller.organizationId), eq(r.id, id))).returning()
     await writeAudit(tx, caller, { entityType: 'respirator-model', entityId: id, action: 'updated', before, after: changes })
-    return row!
+    return respiratorModelView(row!)
   })
 })

@@ -4,11 +4,11 @@ export default defineEventHandler(async (event) => {
   const caller = await requireRole(event, 'administer')
   const input = await parseBody(event, respiratorModelSchema)
   const created = await useDb().transaction(async (tx) => {
-    const [row] = await tx.insert(schema.respiratorModels).values({ ...input, organizationId: caller.organizationId }).onConflictDoNothing().returning()
-    if (!row) throw httpError(409, `${input.make} ${input.model} is already in the catalogue.`, { fieldErrors: { model: 'Already in the catalogue.' } })
-    await writeAudit(tx, caller, { entityType: 'respirator-model', entityId: row.id, action: 'created', after: input })
-    return row
+    // A make and model already listed is refused by its unique index (server/utils/database-refusals.ts).
+    const [row] = await tx.insert(schema.respiratorModels).values({ ...input, organizationId: caller.organizationId }).returning()
+    await writeAudit(tx, caller, { entityType: 'respirator-model', entityId: row!.id, action: 'created', after: input })
+    return row!
   })
   setResponseStatus(event, 201)
-  return created
+  return respiratorModelView(created)
 })

@@ -17,5 +17,5 @@ export default defineEventHandler(async (event) => {
     return signed
   })
   setResponseStatus(event, 201)
-  return { countersign: created, review: await reviewOfRecord(caller.organizationId, id) }
+  return { countersign: { id: created.id, comment: created.comment, signedAt: created.signedAt }, review: await reviewOfRecord(caller.organizationId, id) }
 })

@@ -13,5 +13,5 @@ export default defineEventHandler(async (event) => {
     return created!
   })
   setResponseStatus(event, 201)
-  return row
+  return clearanceView(row)
 })
