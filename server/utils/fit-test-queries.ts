@@ -33,7 +33,6 @@ export async function resolveReferences(organizationId: string, input: { personI
   return { person: person!, model: model!, site: site!, counter: counter ?? null }
 }
 
-type Tx = Parameters<Parameters<Database['transaction']>[0]>[0]
 
 /**
  * Locks every revision of a record (SELECT … FOR UPDATE, in revision order) for the rest of the

@@ -9,7 +9,6 @@ import { insightRead, insightScope as rawScope } from '../database/insight-scope
 
 export const insightScope = rawScope
 
-type Tx = Parameters<Parameters<Database['transaction']>[0]>[0]
 
 /**
  * Keeps the insights summary in step with a record after it was finished, corrected or withdrawn:

@@ -17,12 +17,10 @@ const NEVER_SENT = ['organizationId', 'passwordHash', 'sessionVersion', 'idempot
 
 /**
  * Known answers that still carry one of them, each with why. `GET /api/auth/me` names the caller's
- * own organization by design. The person page's route still spreads the person row and its imported
- * history rows; it is being reworked for speed, and its view follows there.
+ * own organization by design.
  */
 const KNOWN: Record<string, string[]> = {
-  'GET /api/auth/me': ['organizationId'],
-  'GET /api/people/:id': ['organizationId', 'importKey']
+  'GET /api/auth/me': ['organizationId']
 }
 
 function keysIn(value: unknown, found = new Set<string>()): Set<string> {

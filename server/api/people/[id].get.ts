@@ -8,11 +8,11 @@ export default defineEventHandler(async (event) => {
   const { standing } = found
   const current = standing.respirators.find(r => r.lastPass && r.status !== 'failed')
   return {
-    ...found.person,
+    ...personView(found.person),
     tests: found.tests,
-    importedHistory: found.history,
+    importedHistory: found.history.map(h => ({ id: h.id, testedOn: h.testedOn, respiratorModelId: h.respiratorModelId, respiratorMake: h.respiratorMake, respiratorModel: h.respiratorModel, respiratorClass: h.respiratorClass, respiratorSize: h.respiratorSize, passed: h.passed, overallFitFactor: h.overallFitFactor, testerName: h.testerName, dueOn: h.dueOn })),
     respirators: standing.respirators,
-    clearances: found.clearances,
+    clearances: found.clearances.map(clearanceView),
     clearance: standing.clearance,
     dueItems: found.dueItems,
     reminders: found.reminders,
