@@ -33,7 +33,6 @@ export async function resolveReferences(organizationId: string, input: { personI
   return { person: person!, model: model!, site: site!, counter: counter ?? null }
 }
 
-
 /**
  * Locks every revision of a record (SELECT … FOR UPDATE, in revision order) for the rest of the
  * transaction and returns them as they are now. Withdrawing, correcting and finishing all take

@@ -9,7 +9,6 @@ import { insightRead, insightScope as rawScope } from '../database/insight-scope
 
 export const insightScope = rawScope
 
-
 /**
  * Keeps the insights summary in step with a record after it was finished, corrected or withdrawn:
  * one call inside the writing transaction, after the status and exercise rows are written.

@@ -108,7 +108,6 @@ export function dueItemsOf(standing: PersonStanding): DueItem[] {
   return items
 }
 
-
 /**
  * A new wearer account is linked to the roster entry with the same e-mail, when exactly one
  * unlinked entry of the organization has it. Audited like a manual link.
