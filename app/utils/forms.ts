@@ -10,3 +10,8 @@ export function validateWith<S extends z.ZodType>(schema: S, values: unknown): {
   }
   return { data: null, errors }
 }
+
+/** An enum's values with their labels, as the choices of a FormSelectField. */
+export function choicesOf<Value extends string>(values: readonly Value[], labels: Record<Value, string>): { value: Value, label: string }[] {
+  return values.map(value => ({ value, label: labels[value] }))
+}
