@@ -10,3 +10,13 @@ export function validateWith<S extends z.ZodType>(schema: S, values: unknown): {
   }
   return { data: null, errors }
 }
+
+/** An enum's values with their labels, as the choices of a FormSelectField. */
+export function choicesOf<Value extends string>(values: readonly Value[], labels: Record<Value, string>): { value: Value, label: string }[] {
+  return values.map(value => ({ value, label: labels[value] }))
+}
+
+/** The sites a piece of equipment can belong to, after "No fixed site" (null). */
+export function siteChoices(sites: readonly { id: string, name: string }[]): { value: string | null, label: string }[] {
+  return [{ value: null, label: 'No fixed site' }, ...sites.map(s => ({ value: s.id, label: s.name }))]
+}

@@ -1,3 +1,5 @@
+import type { InsightRate } from './insight-types'
+
 /** One CSV cell: quoted when needed; a leading =, +, - or @ is prefixed so a spreadsheet never runs it. */
 function csvCell(value: unknown): string {
   if (value === null || value === undefined) return ''
@@ -43,7 +45,7 @@ export function percent(rate: number | null | undefined, digits = 0) {
 }
 
 /** "72 % (61–81 %)" or, for a small group, "3 of 4 — too few tests for an interval". */
-export function rateText(r: { successes: number, trials: number, rate: number | null, lower: number | null, upper: number | null, small: boolean }) {
+export function rateText(r: InsightRate) {
   if (r.trials === 0) return 'no tests'
   const base = `${percent(r.rate)} (${r.successes} of ${r.trials})`
   if (r.small || r.lower === null || r.upper === null) return base
