@@ -7,7 +7,8 @@
 // of four pages in headless Chromium. Prints figures and ratios; asserts nothing; never in npm test.
 //   SEALWRIGHT_BENCH_SECONDS (6), SEALWRIGHT_BENCH_CONNECTIONS (10), SEALWRIGHT_BENCH_PEOPLE (2000),
 //   SEALWRIGHT_BENCH_TESTS (20000), SEALWRIGHT_BENCH_REUSE=1 keeps the scratch database,
-//   SEALWRIGHT_BENCH_PORT (3090; the floor uses the next port), SEALWRIGHT_PG_PORT (54329).
+//   SEALWRIGHT_BENCH_PORT (3090; the floor uses the next port), SEALWRIGHT_PG_PORT (54329),
+//   SEALWRIGHT_BENCH_ONLY=firstload skips the routes and measures only the first-load JavaScript.
 import { spawn } from 'node:child_process'
 import { existsSync, readFileSync, writeFileSync } from 'node:fs'
 import { join } from 'node:path'
@@ -73,7 +74,8 @@ async function main() {
     { label: 'person', api: `/api/people/${personId}`, page: `/people/${personId}` }
   ]
   const summary: string[] = []
-  say(`${connections} connections, ${seconds} s each, ${size.people.toLocaleString('en')} people, ${size.tests.toLocaleString('en')} tests`)
+  if (env.SEALWRIGHT_BENCH_ONLY === 'firstload') routes.length = 0
+  else say(`${connections} connections, ${seconds} s each, ${size.people.toLocaleString('en')} people, ${size.tests.toLocaleString('en')} tests`)
   const header = ['what', 'req/s', 'p50 ms', 'p99 ms', 'errors', 'bytes/req', 'round trips']
   for (const route of routes) {
     say(`\n${route.label}`)
