@@ -2,6 +2,7 @@ import { z } from 'zod'
 import { calendarDate, changesSchema, pageNumber } from './input-ranges'
 import { MEDICAL_CLEARANCE_STATUSES } from './enums'
 import { PERSON_STATUSES } from './status-labels'
+
 const statuses = MEDICAL_CLEARANCE_STATUSES
 
 const optionalText = (max: number, label: string) => z.string().trim().max(max, { error: `${label}: use at most ${max} characters.` })
