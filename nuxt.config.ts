@@ -49,6 +49,12 @@ export default defineNuxtConfig({
       baseUrl: 'http://127.0.0.1:3000'
     }
   },
+  experimental: {
+    // A link fetches its page's code when a pointer rests on it or it takes focus, not as soon as it
+    // scrolls into view: the side panel links to every area, and fetching them all made each first
+    // load carry the code of a dozen pages nobody had opened (the calculator's unit library among them).
+    defaults: { nuxtLink: { prefetchOn: { visibility: false, interaction: true } } }
+  },
   compatibilityDate: '2026-11-01',
   nitro: {
     errorHandler: ['~~/server/error-handler.ts', nuxtPageErrorHandler],

@@ -8,7 +8,8 @@
 //   SEALWRIGHT_BENCH_SECONDS (6), SEALWRIGHT_BENCH_CONNECTIONS (10), SEALWRIGHT_BENCH_PEOPLE (2000),
 //   SEALWRIGHT_BENCH_TESTS (20000), SEALWRIGHT_BENCH_REUSE=1 keeps the scratch database,
 //   SEALWRIGHT_BENCH_PORT (3090; the floor uses the next port), SEALWRIGHT_PG_PORT (54329),
-//   SEALWRIGHT_BENCH_ONLY=detail,person measures only the routes whose label starts with those words,
+//   SEALWRIGHT_BENCH_ONLY=detail,person measures only the routes whose label starts with those words
+//   (SEALWRIGHT_BENCH_ONLY=firstload: no routes, only the first-load JavaScript),
 //   SEALWRIGHT_BENCH_PROFILE=<dir> writes a CPU profile of the app (node --cpu-prof) there when it stops.
 import { spawn } from 'node:child_process'
 import { existsSync, readFileSync, writeFileSync } from 'node:fs'
@@ -82,7 +83,8 @@ async function main() {
     { label: 'person', api: `/api/people/${personId}`, page: `/people/${personId}` }
   ].filter(r => !only?.length || only.some(w => r.label.startsWith(w)))
   const summary: string[] = []
-  say(`${connections} connections, ${seconds} s each, ${size.people.toLocaleString('en')} people, ${size.tests.toLocaleString('en')} tests`)
+  if (env.SEALWRIGHT_BENCH_ONLY === 'firstload') routes.length = 0
+  else say(`${connections} connections, ${seconds} s each, ${size.people.toLocaleString('en')} people, ${size.tests.toLocaleString('en')} tests`)
   const header = ['what', 'req/s', 'p50 ms', 'p99 ms', 'errors', 'bytes/req', 'round trips']
   for (const route of routes) {
     say(`\n${route.label}`)
@@ -99,7 +101,7 @@ async function main() {
   say('')
   for (const line of summary) say(line)
 
-  if (only?.length) return
+  if (only?.length && env.SEALWRIGHT_BENCH_ONLY !== 'firstload') return
   say('\nFirst-load JavaScript (gzipped; target ≤ 150 kB):')
   const loads = await firstLoadJs(base, cookie, [
     { label: 'sign-in', path: '/sign-in', signedIn: false },

@@ -1,5 +1,5 @@
 import { defineStore } from 'pinia'
-import type { PersonFitStatus } from '#shared/utils/person-schemas'
+import type { PersonFitStatus } from '#shared/utils/status-labels'
 
 /** List filters that survive moving between pages, so "back to the roster" keeps the view. */
 export const useFilterStore = defineStore('filters', {

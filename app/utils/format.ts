@@ -1,4 +1,8 @@
-import { findBuiltInProtocol, findRespiratorClass, formatFitFactor } from '#shared/utils/compute'
+// Leaf modules of the computation module, not its index: every page loads this file (the layout
+// uses it), and the index would bring the statistics and CSV libraries along.
+import { formatFitFactor } from '#shared/utils/compute/fit-factor-text'
+import { findBuiltInProtocol } from '#shared/utils/compute/protocol-data'
+import { findRespiratorClass } from '#shared/utils/compute/respirator-classes'
 import { formatCalendarDay, formatEventDay, formatEventTime } from '#shared/utils/clock'
 
 export const PROGRAM_TIME_ZONE_KEY = 'program-time-zone'

@@ -1,5 +1,5 @@
 import { and, eq, gte } from 'drizzle-orm'
-import { calibrationState } from '#shared/utils/equipment-schemas'
+import { calibrationState } from '#shared/utils/calibration'
 import { decideCoverage, localDay } from '#shared/utils/coverage'
 
 const DAY_MS = 86_400_000

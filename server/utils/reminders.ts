@@ -1,7 +1,7 @@
 import { and, eq, inArray, sql } from 'drizzle-orm'
 import { formatCalendarDay } from '#shared/utils/clock'
 import { reminderSettingsOf, reminderStep } from '#shared/utils/oversight'
-import { DUE_REASON_LABELS } from '#shared/utils/oversight-schemas'
+import { DUE_REASON_LABELS } from '#shared/utils/status-labels'
 import type { DueListQuery } from '#shared/utils/oversight-schemas'
 import type { Caller } from './auth'
 import type { DueItem } from './oversight'

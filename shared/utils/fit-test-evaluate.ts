@@ -121,14 +121,3 @@ export function retestIntervalMonths(setting: number | undefined | null): number
   if (!setting || !Number.isFinite(setting)) return MAX_RETEST_INTERVAL_MONTHS
   return Math.min(MAX_RETEST_INTERVAL_MONTHS, Math.max(1, Math.floor(setting)))
 }
-
-/**
- * The protocol offered first for a respirator class: the shortened protocol that 29 CFR 1910.134
- * App. A Part I.C.4 / I.C.5 allow for that facepiece under US OSHA rules, else the standard one.
- */
-export function defaultProtocolKeyFor(respiratorClass: string, ruleSet: string): string {
-  if (ruleSet !== 'us-osha') return 'osha-standard'
-  if (respiratorClass === 'filtering-facepiece') return 'osha-modified-filtering-facepiece'
-  if (respiratorClass === 'elastomeric-half-mask' || respiratorClass === 'elastomeric-full-facepiece') return 'osha-modified-elastomeric'
-  return 'osha-standard'
-}

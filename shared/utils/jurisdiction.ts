@@ -1,5 +1,7 @@
-import { PASS_LEVEL_RULE_SETS } from './compute'
-import type { PassLevelRuleSetKey } from './compute'
+// The pass-levels leaf, not the computation index: the fit-test list and the verification page
+// import this file, and the index brings the statistics and CSV libraries along.
+import { PASS_LEVEL_RULE_SETS } from './compute/pass-levels'
+import type { PassLevelRuleSetKey } from './compute/pass-levels'
 
 // The citations a record, a fit card and a verification page carry, by the organization's rule set
 // (DOMAIN.md, "Jurisdiction"). A UK record never cites 29 CFR 1910.134(m)(2).

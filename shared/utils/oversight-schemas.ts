@@ -1,5 +1,6 @@
 import { z } from 'zod'
 import { RESPIRATOR_CLASSES } from './compute'
+import { DUE_REASONS } from './status-labels'
 
 const classKeys = RESPIRATOR_CLASSES.map(c => c.key) as [string, ...string[]]
 // NUL and other control characters are refused in every free-text field.
@@ -18,17 +19,6 @@ export const clearanceSchema = z.object({
   restrictions: plainText(500, 'Restrictions').transform(v => v === '' ? null : v).nullable().optional()
 }).refine(v => !v.validUntil || v.validUntil >= v.clearedOn, { error: 'Valid until cannot be before the clearance date.', path: ['validUntil'] })
 export type ClearanceInput = z.input<typeof clearanceSchema>
-
-export const DUE_REASONS = ['overdue', 'due-soon', 'never-tested', 'failed', 'clearance-lapsed', 'clearance-lapsing', 'no-clearance'] as const
-export const DUE_REASON_LABELS: Record<typeof DUE_REASONS[number], string> = {
-  'overdue': 'Fit test overdue',
-  'due-soon': 'Fit test due within 30 days',
-  'never-tested': 'Assigned, never fit-tested',
-  'failed': 'Last fit test failed',
-  'clearance-lapsed': 'Medical clearance lapsed',
-  'clearance-lapsing': 'Medical clearance ends within 30 days',
-  'no-clearance': 'No medical clearance on file'
-}
 
 export const dueListQuerySchema = z.object({
   siteId: z.uuid({ error: 'Choose a site from the list.' }).optional(),

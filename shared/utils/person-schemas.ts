@@ -1,14 +1,8 @@
 import { z } from 'zod'
 import { calendarDate, changesSchema, pageNumber } from './input-ranges'
 import { MEDICAL_CLEARANCE_STATUSES } from './enums'
-import type { MedicalClearanceStatus } from './enums'
+import { PERSON_STATUSES } from './status-labels'
 
-export const MEDICAL_CLEARANCE_LABELS: Readonly<Record<MedicalClearanceStatus, string>> = {
-  'cleared': 'Cleared',
-  'cleared-with-limits': 'Cleared with limits',
-  'pending': 'Awaiting evaluation',
-  'not-cleared': 'Not cleared'
-}
 const statuses = MEDICAL_CLEARANCE_STATUSES
 
 const optionalText = (max: number, label: string) => z.string().trim().max(max, { error: `${label}: use at most ${max} characters.` })
@@ -32,16 +26,6 @@ export const updatePersonSchema = changesSchema(personSchema).extend({
   active: z.boolean({ error: 'Choose active or not.' }).optional(),
   reminderOptOut: z.boolean({ error: 'Choose whether this person gets reminder e-mail.' }).optional()
 })
-
-export const PERSON_STATUSES = ['current', 'due-soon', 'overdue', 'failed', 'never-tested'] as const
-export type PersonFitStatus = typeof PERSON_STATUSES[number]
-export const PERSON_STATUS_LABELS: Record<PersonFitStatus, string> = {
-  'current': 'Current',
-  'due-soon': 'Due within 30 days',
-  'overdue': 'Overdue',
-  'failed': 'Failed — retest needed',
-  'never-tested': 'Never tested'
-}
 
 export const listPeopleQuerySchema = z.object({
   q: z.string().trim().max(120).optional(),

@@ -1,5 +1,6 @@
 import Papa from 'papaparse'
-import { DUE_REASON_LABELS, dueListQuerySchema } from '#shared/utils/oversight-schemas'
+import { dueListQuerySchema } from '#shared/utils/oversight-schemas'
+import { DUE_REASON_LABELS } from '#shared/utils/status-labels'
 
 /** The due list as CSV, one line per person and item. Cells that a spreadsheet would run as a formula are neutralised. */
 export default defineEventHandler(async (event) => {
