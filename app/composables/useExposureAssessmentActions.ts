@@ -7,12 +7,12 @@ export function useExposureAssessmentActions() {
   }
   return {
     async create(body: SaveAssessmentInput) {
-      const reply = await $fetch<{ id: string }>('/api/exposure-assessments', { method: 'POST', body })
+      const reply = await $fetch('/api/exposure-assessments', { method: 'POST', body })
       await refresh()
       return reply
     },
     async update(id: string, body: SaveAssessmentInput & { version: number }) {
-      const reply = await $fetch<{ id: string, version: number }>(`/api/exposure-assessments/${id}`, { method: 'PATCH', body })
+      const reply = await $fetch(`/api/exposure-assessments/${id}`, { method: 'PATCH', body })
       await refresh(id)
       return reply
     },
@@ -21,7 +21,7 @@ export function useExposureAssessmentActions() {
       await refresh(id)
     },
     async revise(id: string, reason: string) {
-      const reply = await $fetch<{ id: string }>(`/api/exposure-assessments/${id}/revisions`, { method: 'POST', body: { reason } })
+      const reply = await $fetch(`/api/exposure-assessments/${id}/revisions`, { method: 'POST', body: { reason } })
       await refresh(id)
       return reply
     },

@@ -14,11 +14,11 @@ export function useFitTestActions(id: string, key: string) {
   return {
     /** `keepalive` lets the request finish after the page is gone (a reload or a closed tab). */
     async save(changes: DraftSave, keepalive = false) {
-      return $fetch<{ version: number }>(`/api/fit-tests/${id}`, { method: 'PATCH', body: changes, keepalive })
+      return $fetch(`/api/fit-tests/${id}`, { method: 'PATCH', body: changes, keepalive })
     },
     /** The version the server holds now (a reload may have read the draft before the last save landed). */
     async currentVersion() {
-      return (await $fetch<{ version: number }>(`/api/fit-tests/${id}`)).version
+      return (await $fetch(`/api/fit-tests/${id}`)).version
     },
     async finish(version: number) {
       const done = await $fetch(`/api/fit-tests/${id}/finish`, { method: 'POST', body: { version } })
@@ -26,11 +26,11 @@ export function useFitTestActions(id: string, key: string) {
       return done
     },
     async startRevision(reason: string) {
-      return $fetch<{ id: string }>(`/api/fit-tests/${id}/revisions`, { method: 'POST', body: { reason } })
+      return $fetch(`/api/fit-tests/${id}/revisions`, { method: 'POST', body: { reason } })
     },
     /** Opens a linked draft for a failed result; the same key twice gives the same draft. */
     async retest(idempotencyKey: string) {
-      const draft = await $fetch<{ id: string }>(`/api/fit-tests/${id}/retest`, { method: 'POST', body: { idempotencyKey } })
+      const draft = await $fetch(`/api/fit-tests/${id}/retest`, { method: 'POST', body: { idempotencyKey } })
       await refreshNuxtData('fit-test-list')
       return draft
     },
@@ -51,7 +51,7 @@ export function useFitTestActions(id: string, key: string) {
 export function useNewFitTestActions() {
   return {
     async create(input: CreateFitTest) {
-      const created = await $fetch<{ id: string }>('/api/fit-tests', { method: 'POST', body: input })
+      const created = await $fetch('/api/fit-tests', { method: 'POST', body: input })
       await refreshNuxtData('fit-test-list')
       return created
     }

@@ -4,7 +4,7 @@ import type { PersonInput } from '#shared/utils/person-schemas'
 
 /** Adds a person to the roster and refreshes it. */
 export async function createPerson(input: PersonInput) {
-  const person = await $fetch<{ id: string }>('/api/people', { method: 'POST', body: input })
+  const person = await $fetch('/api/people', { method: 'POST', body: input })
   await refreshNuxtData('people-list')
   return person
 }

@@ -6,7 +6,7 @@ export function usePracticeActions(refreshKey?: string) {
   const refresh = () => refreshKey ? refreshNuxtData(refreshKey) : Promise.resolve()
   return {
     async createSet(name: string) {
-      const set = await $fetch<{ id: string }>('/api/practice-sets', { method: 'POST', body: { name } })
+      const set = await $fetch('/api/practice-sets', { method: 'POST', body: { name } })
       await refresh()
       return set
     },
@@ -15,15 +15,15 @@ export function usePracticeActions(refreshKey?: string) {
       await refresh()
     },
     async startTest(body: CreatePracticeTest) {
-      return $fetch<{ id: string }>('/api/practice-tests', { method: 'POST', body })
+      return $fetch('/api/practice-tests', { method: 'POST', body })
     },
     async clearSet(id: string) {
-      const reply = await $fetch<{ cleared: { name: string, practicePeople: number, practiceTests: number } }>(`/api/practice-sets/${id}`, { method: 'DELETE' })
+      const reply = await $fetch(`/api/practice-sets/${id}`, { method: 'DELETE' })
       await refresh()
       return reply.cleared
     },
     save(id: string, body: { version: number, entry: FitTestEntry, seriesText?: string | null }) {
-      return $fetch<{ version: number }>(`/api/practice-tests/${id}`, { method: 'PATCH', body })
+      return $fetch(`/api/practice-tests/${id}`, { method: 'PATCH', body })
     },
     async finish(id: string, version: number) {
       await $fetch(`/api/practice-tests/${id}/finish`, { method: 'POST', body: { version } })

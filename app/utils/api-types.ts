@@ -15,3 +15,9 @@ export type CounterListRow = ApiGet<'/api/counters'>[number]
 export type BenchRigListRow = ApiGet<'/api/bench-rigs'>[number]
 /** One practice test as its page and editor read it. */
 export type PracticeTestDetail = ApiGet<'/api/practice-tests/:id'>
+/** One row of the fit-test list; the person page's tests have the same shape. */
+export type FitTestListRow = ApiGet<'/api/fit-tests'>['rows'][number] | ApiGet<'/api/people/:id'>['tests'][number]
+/** One person on the due list, with what is due. */
+export type DueListRow = ApiGet<'/api/due-list'>['rows'][number]
+/** The person page: the person and everything shown about them. */
+export type PersonDetail = ApiGet<'/api/people/:id'>
