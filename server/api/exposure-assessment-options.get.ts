@@ -1,4 +1,5 @@
 import { asc, eq } from 'drizzle-orm'
+import { roleMay } from '#shared/utils/permissions'
 
 /** What the calculator needs: the organization's rule set, its sites, and the roster to assign from. */
 export default defineEventHandler(async (event) => {
@@ -13,7 +14,7 @@ export default defineEventHandler(async (event) => {
   const jobTitles = [...new Set(active.map(x => x.jobTitle?.trim()).filter((x): x is string => Boolean(x)))].sort()
   return {
     ruleSet,
-    canWrite: caller.role === 'admin' || caller.role === 'reviewer',
+    canWrite: roleMay(caller.role, 'review'),
     sites: sites.map(s => ({ id: s.id, name: s.name })),
     people: active.map(x => ({ id: x.id, fullName: x.fullName, jobTitle: x.jobTitle })),
     jobTitles
