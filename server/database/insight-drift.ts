@@ -2,7 +2,7 @@ import { sql } from 'drizzle-orm'
 import type { SQL } from 'drizzle-orm'
 import type { InsightFilters } from '../../shared/utils/insight-schemas'
 import { DRIFT_DROP_FRACTION, DRIFT_MIN_TESTS } from '../../shared/utils/insight-schemas'
-import { factScope, int, keepsWholeSeries, rows } from './insight-scope'
+import { driftPersonOf, factScope, int, keepsWholeSeries, rows } from './insight-scope'
 import type { SqlRunner } from './insight-scope'
 
 /** The fit factors (from ln FF `y`) and dates of a series, in time `t` order, as columns `series` and `dates`. */
@@ -111,25 +111,6 @@ export async function driftingPeople(db: SqlRunner, organizationId: string, f: I
   }
   return {
     candidates,
-    people: r.map(x => ({
-      personId: String(x.person_id),
-      personName: String(x.full_name),
-      employeeNumber: x.employee_number === null ? null : String(x.employee_number),
-      respiratorModelId: String(x.respirator_model_id),
-      make: String(x.respirator_make),
-      model: String(x.respirator_model),
-      size: String(x.respirator_size),
-      tests: int(x.tests),
-      slopePerYear: Number(x.slope),
-      latestFitFactor: Math.exp(Number(x.latest_y)),
-      medianFitFactor: Math.exp(Number(x.median_y)),
-      predictedAtDue: Number(x.predicted_at_due),
-      nextDueOn: String(x.next_due_on instanceof Date ? x.next_due_on.toISOString().slice(0, 10) : x.next_due_on),
-      passLevel: Number(x.pass_level),
-      latestBelowOwnMedian: Boolean(x.below_median),
-      predictsFailBeforeDue: Boolean(x.predicts_fail),
-      series: (x.series as unknown[]).map(Number),
-      dates: (x.dates as unknown[]).map(String)
-    }))
+    people: r.map(driftPersonOf)
   }
 }

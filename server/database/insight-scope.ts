@@ -126,3 +126,27 @@ export function insightScope(organizationId: string, f: InsightFilters, opts: { 
   if (f.testerUserId && !opts.ignoreTester) parts.push(sql`ft.tester_user_id = ${f.testerUserId}`)
   return sql.join(parts, sql` and `)
 }
+
+/** One drifting person and model, decoded from a drift query's row (the summary's and the raw reference's alike). */
+export function driftPersonOf(x: Record<string, unknown>) {
+  return {
+    personId: String(x.person_id),
+    personName: String(x.full_name),
+    employeeNumber: x.employee_number === null ? null : String(x.employee_number),
+    respiratorModelId: String(x.respirator_model_id),
+    make: String(x.respirator_make),
+    model: String(x.respirator_model),
+    size: String(x.respirator_size),
+    tests: int(x.tests),
+    slopePerYear: Number(x.slope),
+    latestFitFactor: Math.exp(Number(x.latest_y)),
+    medianFitFactor: Math.exp(Number(x.median_y)),
+    predictedAtDue: Number(x.predicted_at_due),
+    nextDueOn: String(x.next_due_on instanceof Date ? x.next_due_on.toISOString().slice(0, 10) : x.next_due_on),
+    passLevel: Number(x.pass_level),
+    latestBelowOwnMedian: Boolean(x.below_median),
+    predictsFailBeforeDue: Boolean(x.predicts_fail),
+    series: (x.series as unknown[]).map(Number),
+    dates: (x.dates as unknown[]).map(String)
+  }
+}
