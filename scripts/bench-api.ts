@@ -10,7 +10,8 @@
 //   SEALWRIGHT_BENCH_PORT (3090; the floor uses the next port), SEALWRIGHT_PG_PORT (54329),
 //   SEALWRIGHT_BENCH_ONLY=detail,person measures only the routes whose label starts with those words
 //   (SEALWRIGHT_BENCH_ONLY=firstload: no routes, only the first-load JavaScript),
-//   SEALWRIGHT_BENCH_PROFILE=<dir> writes a CPU profile of the app (node --cpu-prof) there when it stops.
+//   SEALWRIGHT_BENCH_PROFILE=<dir> writes a CPU profile of the app (node --cpu-prof) there when it stops,
+//   SEALWRIGHT_BENCH_PHASES=api,floor,page measures only those (a profile of the API alone, say).
 import { spawn } from 'node:child_process'
 import { existsSync, readFileSync, writeFileSync } from 'node:fs'
 import { join } from 'node:path'
@@ -83,15 +84,17 @@ async function main() {
     { label: 'person', api: `/api/people/${personId}`, page: `/people/${personId}` }
   ].filter(r => !only?.length || only.some(w => r.label.startsWith(w)))
   const summary: string[] = []
+  const phases = new Set((env.SEALWRIGHT_BENCH_PHASES || 'api,floor,page').split(',').map(w => w.trim()))
+  const skipped: Measured = { rps: Number.NaN, p50: Number.NaN, p99: Number.NaN, errors: 0, bytes: 0 }
   if (env.SEALWRIGHT_BENCH_ONLY === 'firstload') routes.length = 0
   else say(`${connections} connections, ${seconds} s each, ${size.people.toLocaleString('en')} people, ${size.tests.toLocaleString('en')} tests`)
   const header = ['what', 'req/s', 'p50 ms', 'p99 ms', 'errors', 'bytes/req', 'round trips']
   for (const route of routes) {
     say(`\n${route.label}`)
     const statements = await captureStatements(`${base}${route.api}`, headers)
-    const api = await measure(`${base}${route.api}`, headers)
-    const floor = await withFloor(appUrl, statements, () => measure(`http://127.0.0.1:${floorPort}/`, {}))
-    const page = await measure(`${base}${route.page}`, { ...headers, accept: 'text/html' })
+    const api = phases.has('api') ? await measure(`${base}${route.api}`, headers) : skipped
+    const floor = phases.has('floor') ? await withFloor(appUrl, statements, () => measure(`http://127.0.0.1:${floorPort}/`, {})) : skipped
+    const page = phases.has('page') ? await measure(`${base}${route.page}`, { ...headers, accept: 'text/html' }) : skipped
     table([header,
       [`GET ${route.api.replace(testId, ':id').replace(personId, ':id')}`, ...figures(api), String(statements.length)],
       ['  same SQL on bare pg', ...figures(floor), String(statements.length)],

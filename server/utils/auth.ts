@@ -28,22 +28,7 @@ export async function requireRole(event: H3Event, permission?: Permission): Prom
   }
   // One round trip: the user, their organization and its sites (kept for this request, see
   // requestOrganization in organizations.ts).
-  const u = schema.users
-  const [user] = await useDb()
-    .select({
-      id: u.id,
-      organizationId: u.organizationId,
-      role: u.role,
-      email: u.email,
-      displayName: u.displayName,
-      active: u.active,
-      sessionVersion: u.sessionVersion,
-      organization: schema.organizations,
-      sites: sitesOfOrganization()
-    })
-    .from(u)
-    .innerJoin(schema.organizations, eq(schema.organizations.id, u.organizationId))
-    .where(and(eq(u.id, sessionUser.id), eq(u.organizationId, sessionUser.organizationId)))
+  const [user] = await callerStatement().execute({ userId: sessionUser.id, organizationId: sessionUser.organizationId })
   if (!user || !user.active) {
     await clearUserSession(event)
     throw httpError(401, 'Your account is no longer active. Ask your program administrator.')
@@ -63,6 +48,26 @@ export async function requireRole(event: H3Event, permission?: Permission): Prom
 }
 
 type Site = typeof schema.sites.$inferSelect
+
+const callerStatement = preparedRead((db) => {
+  const u = schema.users
+  return db
+    .select({
+      id: u.id,
+      organizationId: u.organizationId,
+      role: u.role,
+      email: u.email,
+      displayName: u.displayName,
+      active: u.active,
+      sessionVersion: u.sessionVersion,
+      organization: schema.organizations,
+      sites: sitesOfOrganization()
+    })
+    .from(u)
+    .innerJoin(schema.organizations, eq(schema.organizations.id, u.organizationId))
+    .where(and(eq(u.id, sql.placeholder('userId')), eq(u.organizationId, sql.placeholder('organizationId'))))
+    .prepare('caller')
+})
 
 /** The caller's sites, ordered by name, as rows shaped like a `select` of `sites` would give. */
 function sitesOfOrganization() {

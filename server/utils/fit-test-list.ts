@@ -1,30 +1,41 @@
 import { and, asc, count, desc, eq, gte, ilike, isNotNull, lt, ne, or, sql } from 'drizzle-orm'
-import type { SQL } from 'drizzle-orm'
+import type { Placeholder, SQL } from 'drizzle-orm'
 import type { ListFitTestsQuery } from '#shared/utils/fit-test-schemas'
 
 const t = schema.fitTests
 const p = schema.people
 
-export function listConditions(organizationId: string, q: Omit<ListFitTestsQuery, 'page' | 'pageSize' | 'sort' | 'dir'>, onlyPersonUserId?: string) {
+/**
+ * How a filter's value enters the statement: as itself (a statement built for this request), or
+ * as a named placeholder (a statement prepared once for every request of the same shape).
+ */
+type Bind = <T>(name: string, value: T) => T | Placeholder
+const asValue: Bind = (_name, value) => value
+export const asPlaceholder: Bind = name => sql.placeholder(name)
+
+/** What a person typed, matched anywhere in the text, their % and _ taken as themselves. */
+const likePattern = (text: string) => `%${text.replace(/[%_\\]/g, m => `\\${m}`)}%`
+
+export function listConditions(organizationId: string, q: Omit<ListFitTestsQuery, 'page' | 'pageSize' | 'sort' | 'dir'>, onlyPersonUserId?: string, bind: Bind = asValue) {
   const where: (SQL | undefined)[] = [
-    eq(t.organizationId, organizationId),
+    eq(t.organizationId, bind('organizationId', organizationId)),
     // One line per record: superseded revisions and open corrections stay on the record's own page.
     ne(t.status, 'superseded'),
     ne(t.status, 'discarded'),
     or(ne(t.status, 'draft'), eq(t.revision, 1))
   ]
-  if (onlyPersonUserId) where.push(eq(p.userId, onlyPersonUserId))
-  if (q.personId) where.push(eq(t.personId, q.personId))
-  if (q.siteId) where.push(eq(t.siteId, q.siteId))
-  if (q.kind) where.push(eq(t.kind, q.kind))
+  if (onlyPersonUserId) where.push(eq(p.userId, bind('onlyPersonUserId', onlyPersonUserId)))
+  if (q.personId) where.push(eq(t.personId, bind('personId', q.personId)))
+  if (q.siteId) where.push(eq(t.siteId, bind('siteId', q.siteId)))
+  if (q.kind) where.push(eq(t.kind, bind('kind', q.kind)))
   if (q.result === 'pass') where.push(eq(t.status, 'finished'), eq(t.passed, true))
   if (q.result === 'fail') where.push(eq(t.status, 'finished'), eq(t.passed, false))
   if (q.result === 'draft') where.push(eq(t.status, 'draft'))
   if (q.result === 'withdrawn') where.push(eq(t.status, 'withdrawn'))
-  if (q.from) where.push(gte(t.performedAt, new Date(`${q.from}T00:00:00Z`)))
-  if (q.to) where.push(lt(t.performedAt, sql`(${q.to}::date + 1)::timestamptz`))
+  if (q.from) where.push(gte(t.performedAt, bind('from', new Date(`${q.from}T00:00:00Z`))))
+  if (q.to) where.push(lt(t.performedAt, sql`(${bind('to', q.to)}::date + 1)::timestamptz`))
   if (q.q) {
-    const like = `%${q.q.replace(/[%_\\]/g, m => `\\${m}`)}%`
+    const like = bind('like', likePattern(q.q))
     where.push(or(ilike(p.fullName, like), ilike(p.employeeNumber, like), ilike(t.respiratorModel, like), ilike(t.respiratorMake, like)))
   }
   return and(...where)
@@ -61,27 +72,57 @@ export const listColumns = {
 }
 
 export async function listFitTests(organizationId: string, q: ListFitTestsQuery, onlyPersonUserId?: string) {
-  const where = listConditions(organizationId, q, onlyPersonUserId)
+  // The page and its total in one round trip, as a statement prepared once per shape of filter.
+  const found = await listStatement(q, onlyPersonUserId).execute({
+    organizationId, onlyPersonUserId, personId: q.personId, siteId: q.siteId, kind: q.kind,
+    from: q.from ? new Date(`${q.from}T00:00:00Z`) : undefined, to: q.to,
+    like: q.q ? likePattern(q.q) : undefined,
+    limit: q.pageSize, offset: (q.page - 1) * q.pageSize
+  })
+  const rows = found.map(({ total: _total, ...row }) => row)
+  // A page past the end has no row to carry the total.
+  const total = found[0]?.total ?? (q.page > 1 ? (await countListed(organizationId, q, onlyPersonUserId))[0]?.n ?? 0 : 0)
+  const coverage = await findCoverageMany(organizationId, rows)
+  return { rows: rows.map(r => ({ ...r, coverage: coverage.get(r.id) ?? null })), total, page: q.page, pageSize: q.pageSize }
+}
+
+/** The records the list would show, counted. The count joins people only when a filter reads them (every record has its person). */
+function countListed(organizationId: string, q: ListFitTestsQuery, onlyPersonUserId: string | undefined, bind: Bind = asValue) {
+  const from = useDb().select({ n: count() }).from(t)
+  return (q.q || onlyPersonUserId ? from.innerJoin(p, eq(p.id, t.personId)) : from).where(listConditions(organizationId, q, onlyPersonUserId, bind))
+}
+
+type ListStatement = ReturnType<typeof buildListStatement>
+const listStatements = new Map<string, ListStatement>()
+/** Shapes kept at most: each is a named statement on every pooled connection. */
+const LIST_SHAPES = 64
+
+/** The prepared list statement for this request's shape: which filters are set, the sort and its direction. */
+function listStatement(q: ListFitTestsQuery, onlyPersonUserId: string | undefined): ListStatement {
+  const shape = [q.personId, q.siteId, q.kind, q.from, q.to, q.q, onlyPersonUserId].map(v => (v ? '1' : '0')).join('') + `-${q.result ?? 'any'}-${q.sort}-${q.dir}`
+  let statement = listStatements.get(shape)
+  if (!statement) {
+    if (listStatements.size >= LIST_SHAPES) listStatements.clear()
+    statement = buildListStatement(q, onlyPersonUserId, `fit_test_list_${shape.replaceAll('-', '_')}`)
+    listStatements.set(shape, statement)
+  }
+  return statement
+}
+
+function buildListStatement(q: ListFitTestsQuery, onlyPersonUserId: string | undefined, name: string) {
+  const where = listConditions('', q, onlyPersonUserId, asPlaceholder)
   const order = q.dir === 'asc' ? asc : desc
   const sortColumn = q.sort === 'person' ? p.fullName : q.sort === 'overallFitFactor' ? t.overallFitFactor : t.performedAt
-  // The page and its total in one round trip (the total is an uncorrelated subquery, run once).
-  // The count joins people only when a filter reads them (every record has its person).
-  const counted = () => {
-    const from = useDb().select({ n: count() }).from(t)
-    return (q.q || onlyPersonUserId ? from.innerJoin(p, eq(p.id, t.personId)) : from).where(where)
-  }
-  const totalOf = sql<number>`(${counted()})`.mapWith(Number)
-  const found = await useDb().select({ ...listColumns, total: totalOf }).from(t)
+  // The total is an uncorrelated subquery, run once.
+  const totalOf = sql<number>`(${countListed('', q, onlyPersonUserId, asPlaceholder)})`.mapWith(Number)
+  return useDb().select({ ...listColumns, total: totalOf }).from(t)
     .innerJoin(p, eq(p.id, t.personId))
     .innerJoin(schema.sites, eq(schema.sites.id, t.siteId))
     .innerJoin(schema.users, eq(schema.users.id, t.testerUserId))
     .leftJoin(schema.counters, eq(schema.counters.id, t.counterId))
-    .where(where).orderBy(order(sortColumn), desc(t.performedAt)).limit(q.pageSize).offset((q.page - 1) * q.pageSize)
-  const rows = found.map(({ total: _total, ...row }) => row)
-  // A page past the end has no row to carry the total.
-  const total = found[0]?.total ?? (q.page > 1 ? (await counted())[0]?.n ?? 0 : 0)
-  const coverage = await findCoverageMany(organizationId, rows)
-  return { rows: rows.map(r => ({ ...r, coverage: coverage.get(r.id) ?? null })), total, page: q.page, pageSize: q.pageSize }
+    .where(where).orderBy(order(sortColumn), desc(t.performedAt))
+    .limit(sql.placeholder('limit')).offset(sql.placeholder('offset'))
+    .prepare(name)
 }
 
 /** The list's rows with the raw inputs the export recomputes each exercise from. */

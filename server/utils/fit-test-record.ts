@@ -16,10 +16,18 @@ const asDate = (value: string | null) => (value === null ? null : new Date(value
  * "Missing" and "not yours" are the same 404.
  */
 export async function loadFitTestRecord(organizationId: string, id: string) {
+  const [found] = await recordStatement().execute({ organizationId, id })
+  if (!found) throw httpError(404, 'No such fit test in your organization.')
+  if (!found.site) throw httpError(404, 'No such site.')
+  return { ...found, site: found.site }
+}
+export type FitTestRecord = Awaited<ReturnType<typeof loadFitTestRecord>>
+
+const recordStatement = preparedRead((db) => {
   const p = schema.people
   const c = schema.counters
   const m = schema.maskUnits
-  const [found] = await useDb().select({
+  return db.select({
     // A finished revision's page reads its stored result, so its series (often the largest field)
     // is read only for a draft, or for a result stored before results were (recomputed from it).
     test: { ...getTableColumns(t), seriesText: sql<string | null>`case when ${t.status} = 'draft' or ${t.evaluation} is null then ${t.seriesText} end` },
@@ -51,12 +59,9 @@ export async function loadFitTestRecord(organizationId: string, id: string) {
     .leftJoin(schema.users, eq(schema.users.id, t.testerUserId))
     .leftJoin(c, and(eq(c.id, t.counterId), eq(c.organizationId, t.organizationId)))
     .leftJoin(m, eq(m.id, t.maskUnitId))
-    .where(and(eq(t.organizationId, organizationId), eq(t.id, id)))
-  if (!found) throw httpError(404, 'No such fit test in your organization.')
-  if (!found.site) throw httpError(404, 'No such site.')
-  return { ...found, site: found.site }
-}
-export type FitTestRecord = Awaited<ReturnType<typeof loadFitTestRecord>>
+    .where(and(eq(t.organizationId, sql.placeholder('organizationId')), eq(t.id, sql.placeholder('id'))))
+    .prepare('fit_test_record')
+})
 
 /**
  * The card printed for this revision: its own, or — for cards made before each revision had one —

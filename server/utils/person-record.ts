@@ -1,5 +1,4 @@
 import { and, desc, eq, sql } from 'drizzle-orm'
-import { listFitTestsQuerySchema } from '#shared/utils/fit-test-schemas'
 import { objectOf, objectsFromJson, rowsFromJson, rowsOf } from './json-rows'
 import type { listFitTests } from './fit-test-list'
 
@@ -17,45 +16,7 @@ const LISTED = 200
  * linked account. "Missing" and "not yours" are the same 404.
  */
 export async function loadPersonRecord(organizationId: string, personId: string, today: string) {
-  const p = schema.people
-  const h = schema.fitHistoryEntries
-  const c = schema.medicalClearances
-  const r = schema.reminderLog
-  const a = schema.respiratorAssignments
-  const m = schema.respiratorModels
-  const u = schema.users
-  const k = schema.counters
-  const rc = schema.readinessChecks
-  const db = useDb()
-  const own = (table: typeof h | typeof c | typeof r | typeof a) => and(eq(table.organizationId, organizationId), eq(table.personId, personId))
-  const listed = db.select({ o: sql`${objectOf(listColumns)}`.as('o'), at: sql`${t.performedAt}`.as('at') }).from(t)
-    .innerJoin(p, eq(p.id, t.personId))
-    .innerJoin(schema.sites, eq(schema.sites.id, t.siteId))
-    .innerJoin(u, eq(u.id, t.testerUserId))
-    .leftJoin(k, eq(k.id, t.counterId))
-    .where(listConditions(organizationId, listFitTestsQuerySchema.parse({ personId, pageSize: LISTED })))
-    .orderBy(desc(t.performedAt)).limit(LISTED)
-  const finished = db.select({ o: sql`${objectOf(finishedTestFacts)}`.as('o') }).from(t)
-    .innerJoin(schema.sites, eq(schema.sites.id, t.siteId))
-    .where(and(eq(t.organizationId, organizationId), eq(t.personId, personId), eq(t.status, 'finished')))
-  const assigned = { personId: a.personId, respiratorModelId: a.respiratorModelId, make: m.make, model: m.model, respiratorClass: m.respiratorClass }
-  const [found] = await db.select({
-    person: sql`to_jsonb(${p})`,
-    tests: sql`(select coalesce(json_agg(q.o order by q.at desc), '[]'::json) from (${listed}) q)`,
-    finished: sql`(select coalesce(json_agg(q.o), '[]'::json) from (${finished}) q)`,
-    history: rowsOf(h, own(h)),
-    clearances: rowsOf(c, own(c), sql`${c.clearedOn} desc`),
-    reminders: sql`(select coalesce(json_agg(to_jsonb(x.*) order by x.created_at desc), '[]'::json)
-      from (select * from ${r} where ${and(own(r), eq(r.kind, 'wearer'))} order by ${r.createdAt} desc limit 100) x)`,
-    assignments: sql`(select coalesce(json_agg(${objectOf(assigned)}), '[]'::json) from ${a} inner join ${m} on ${eq(m.id, a.respiratorModelId)} where ${own(a)})`,
-    linked: sql`(select ${objectOf({ id: u.id, email: u.email, displayName: u.displayName, active: u.active })} from ${u}
-      where ${u.organizationId} = ${organizationId} and ${u.id} = ${p.userId})`,
-    counters: sql`(select coalesce(json_agg(json_build_object('id', ${k.id}, 'calibrationDueOn', ${k.calibrationDueOn})), '[]'::json) from ${k} where ${k.organizationId} = ${organizationId})`,
-    // The readiness checks within two days of any of the person's measured tests (coverage).
-    checks: sql`(select coalesce(json_agg(json_build_object('id', ${rc.id}, 'counterId', ${rc.counterId}, 'benchRigId', ${rc.benchRigId}, 'status', ${rc.status}, 'completedAt', ${rc.completedAt})), '[]'::json)
-      from ${rc} where ${rc.organizationId} = ${organizationId} and exists (select 1 from ${t} f where f.organization_id = ${organizationId}
-        and f.person_id = ${personId} and f.counter_id is not null and ${rc.completedAt} between f.performed_at - ${DAY} and f.performed_at + ${DAY}))`
-  }).from(p).where(and(eq(p.organizationId, organizationId), eq(p.id, personId)))
+  const [found] = await personStatement().execute({ organizationId, personId })
   if (!found) throw httpError(404, 'No such person in your roster.')
 
   const [person] = rowsFromJson(p, [found.person])
@@ -78,3 +39,48 @@ export async function loadPersonRecord(organizationId: string, personId: string,
     linked: linked ?? null
   }
 }
+
+const p = schema.people
+const h = schema.fitHistoryEntries
+const c = schema.medicalClearances
+const r = schema.reminderLog
+const a = schema.respiratorAssignments
+const m = schema.respiratorModels
+const u = schema.users
+const k = schema.counters
+const rc = schema.readinessChecks
+const assigned = { personId: a.personId, respiratorModelId: a.respiratorModelId, make: m.make, model: m.model, respiratorClass: m.respiratorClass }
+
+/** The statement behind `loadPersonRecord`, prepared once (see preparedRead). */
+const personStatement = preparedRead((db) => {
+  const organizationId = sql.placeholder('organizationId')
+  const personId = sql.placeholder('personId')
+  const own = (table: typeof h | typeof c | typeof r | typeof a) => and(eq(table.organizationId, organizationId), eq(table.personId, personId))
+  const listed = db.select({ o: sql`${objectOf(listColumns)}`.as('o'), at: sql`${t.performedAt}`.as('at') }).from(t)
+    .innerJoin(p, eq(p.id, t.personId))
+    .innerJoin(schema.sites, eq(schema.sites.id, t.siteId))
+    .innerJoin(u, eq(u.id, t.testerUserId))
+    .leftJoin(k, eq(k.id, t.counterId))
+    .where(and(listConditions('', {}, undefined, asPlaceholder), eq(t.personId, personId)))
+    .orderBy(desc(t.performedAt)).limit(LISTED)
+  const finished = db.select({ o: sql`${objectOf(finishedTestFacts)}`.as('o') }).from(t)
+    .innerJoin(schema.sites, eq(schema.sites.id, t.siteId))
+    .where(and(eq(t.organizationId, organizationId), eq(t.personId, personId), eq(t.status, 'finished')))
+  return db.select({
+    person: sql`to_jsonb(${p})`,
+    tests: sql`(select coalesce(json_agg(q.o order by q.at desc), '[]'::json) from (${listed}) q)`,
+    finished: sql`(select coalesce(json_agg(q.o), '[]'::json) from (${finished}) q)`,
+    history: rowsOf(h, own(h)),
+    clearances: rowsOf(c, own(c), sql`${c.clearedOn} desc`),
+    reminders: sql`(select coalesce(json_agg(to_jsonb(x.*) order by x.created_at desc), '[]'::json)
+      from (select * from ${r} where ${and(own(r), eq(r.kind, 'wearer'))} order by ${r.createdAt} desc limit 100) x)`,
+    assignments: sql`(select coalesce(json_agg(${objectOf(assigned)}), '[]'::json) from ${a} inner join ${m} on ${eq(m.id, a.respiratorModelId)} where ${own(a)})`,
+    linked: sql`(select ${objectOf({ id: u.id, email: u.email, displayName: u.displayName, active: u.active })} from ${u}
+      where ${u.organizationId} = ${organizationId} and ${u.id} = ${p.userId})`,
+    counters: sql`(select coalesce(json_agg(json_build_object('id', ${k.id}, 'calibrationDueOn', ${k.calibrationDueOn})), '[]'::json) from ${k} where ${k.organizationId} = ${organizationId})`,
+    // The readiness checks within two days of any of the person's measured tests (coverage).
+    checks: sql`(select coalesce(json_agg(json_build_object('id', ${rc.id}, 'counterId', ${rc.counterId}, 'benchRigId', ${rc.benchRigId}, 'status', ${rc.status}, 'completedAt', ${rc.completedAt})), '[]'::json)
+      from ${rc} where ${rc.organizationId} = ${organizationId} and exists (select 1 from ${t} f where f.organization_id = ${organizationId}
+        and f.person_id = ${personId} and f.counter_id is not null and ${rc.completedAt} between f.performed_at - ${DAY} and f.performed_at + ${DAY}))`
+  }).from(p).where(and(eq(p.organizationId, organizationId), eq(p.id, personId))).prepare('person_record')
+})

@@ -5,15 +5,25 @@
  * zone. The zone arithmetic is the platform's own (Intl with the IANA database), never ours.
  */
 
+import { dateTimeFormat } from './intl-cache'
+
 const CALENDAR_DAY = /^\d{4}-\d{2}-\d{2}$/
 
 /** The zone used when a page has no site of its own to name. */
 export const FALLBACK_TIME_ZONE = 'UTC'
 
+const DAY_PARTS: Intl.DateTimeFormatOptions = { day: 'numeric', month: 'short', year: 'numeric' }
+const TIME_PARTS: Intl.DateTimeFormatOptions = { ...DAY_PARTS, hour: '2-digit', minute: '2-digit', hourCycle: 'h23', timeZoneName: 'short' }
+
+// Looked up by zone alone: the lists format a date or two on every row.
+const dayFormats = new Map<string, Intl.DateTimeFormat>()
+const timeFormats = new Map<string, Intl.DateTimeFormat>()
+
 function validZone(timeZone: string | null | undefined): string {
   if (!timeZone) return FALLBACK_TIME_ZONE
+  if (dayFormats.has(timeZone)) return timeZone
   try {
-    new Intl.DateTimeFormat('en-GB', { timeZone })
+    dateTimeFormat('en-GB', { ...DAY_PARTS, timeZone })
     return timeZone
   } catch {
     return FALLBACK_TIME_ZONE
@@ -21,13 +31,12 @@ function validZone(timeZone: string | null | undefined): string {
 }
 
 function parts(at: Date, timeZone: string, withTime: boolean) {
-  const format = new Intl.DateTimeFormat('en-GB', {
-    timeZone,
-    day: 'numeric',
-    month: 'short',
-    year: 'numeric',
-    ...(withTime ? { hour: '2-digit', minute: '2-digit', hourCycle: 'h23', timeZoneName: 'short' } : {})
-  } as Intl.DateTimeFormatOptions)
+  const formats = withTime ? timeFormats : dayFormats
+  let format = formats.get(timeZone)
+  if (!format) {
+    format = dateTimeFormat('en-GB', { ...(withTime ? TIME_PARTS : DAY_PARTS), timeZone })
+    formats.set(timeZone, format)
+  }
   const found: Record<string, string> = {}
   for (const part of format.formatToParts(at)) found[part.type] = part.value
   return found

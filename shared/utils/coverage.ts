@@ -3,6 +3,7 @@
 // site's time zone (DOMAIN.md, "Records and timing"). Pure: no Vue, no Nitro.
 
 import { formatCalendarDay } from './clock'
+import { dateTimeFormat } from './intl-cache'
 
 export const COVERAGE_REASONS = [
   'covered',
@@ -52,7 +53,7 @@ const dayFormats = new Map<string, Intl.DateTimeFormat>()
 export function localDay(at: Date | string, timeZone: string): string {
   let format = dayFormats.get(timeZone)
   if (!format) {
-    format = new Intl.DateTimeFormat('en-CA', { timeZone, year: 'numeric', month: '2-digit', day: '2-digit' })
+    format = dateTimeFormat('en-CA', { timeZone, year: 'numeric', month: '2-digit', day: '2-digit' })
     dayFormats.set(timeZone, format)
   }
   return format.format(new Date(at))
@@ -60,7 +61,7 @@ export function localDay(at: Date | string, timeZone: string): string {
 
 function localTime(at: Date, timeZone: string): string {
   // The time with its zone named ("06:06 GMT"), the same clock every page uses (shared/utils/clock.ts).
-  return new Intl.DateTimeFormat('en-GB', { timeZone, hour: '2-digit', minute: '2-digit', hourCycle: 'h23', timeZoneName: 'short' }).format(at)
+  return dateTimeFormat('en-GB', { timeZone, hour: '2-digit', minute: '2-digit', hourCycle: 'h23', timeZoneName: 'short' }).format(at)
 }
 
 const toDate = (v: Date | string) => (v instanceof Date ? v : new Date(v))
