@@ -3,8 +3,9 @@
 // finished tests, one in twenty from a 1 Hz series), starts the built app on it, and with autocannon
 // measures the detail, list, overview and person routes and their server-rendered pages. For each
 // API route the floor is a bare Node http server replaying the statements the route ran during a
-// warm-up request (captured by the app's Drizzle logger). Then the first-load JavaScript, gzipped,
-// of four pages in headless Chromium. Prints figures and ratios; asserts nothing; never in npm test.
+// warm-up request (captured by the app's Drizzle logger), once as plain statements (the floor the
+// targets use) and once as named prepared statements, as the app sends its busiest reads. Then the
+// first-load JavaScript, gzipped, of four pages in headless Chromium. Prints figures and ratios; asserts nothing; never in npm test.
 //   SEALWRIGHT_BENCH_SECONDS (6), SEALWRIGHT_BENCH_CONNECTIONS (10), SEALWRIGHT_BENCH_PEOPLE (2000),
 //   SEALWRIGHT_BENCH_TESTS (20000), SEALWRIGHT_BENCH_REUSE=1 keeps the scratch database,
 //   SEALWRIGHT_BENCH_PORT (3090; the floor uses the next port), SEALWRIGHT_PG_PORT (54329),
@@ -93,13 +94,15 @@ async function main() {
     say(`\n${route.label}`)
     const statements = await captureStatements(`${base}${route.api}`, headers)
     const api = phases.has('api') ? await measure(`${base}${route.api}`, headers) : skipped
-    const floor = phases.has('floor') ? await withFloor(appUrl, statements, () => measure(`http://127.0.0.1:${floorPort}/`, {})) : skipped
+    const floor = phases.has('floor') ? await withFloor(appUrl, statements, false, () => measure(`http://127.0.0.1:${floorPort}/`, {})) : skipped
+    const preparedFloor = phases.has('floor') ? await withFloor(appUrl, statements, true, () => measure(`http://127.0.0.1:${floorPort}/`, {})) : skipped
     const page = phases.has('page') ? await measure(`${base}${route.page}`, { ...headers, accept: 'text/html' }) : skipped
     table([header,
       [`GET ${route.api.replace(testId, ':id').replace(personId, ':id')}`, ...figures(api), String(statements.length)],
       ['  same SQL on bare pg', ...figures(floor), String(statements.length)],
+      ['  same SQL on bare pg, prepared', ...figures(preparedFloor), String(statements.length)],
       [`  page ${route.page.replace(testId, ':id').replace(personId, ':id')}`, ...figures(page), '']])
-    summary.push(`${route.label.padEnd(26)} API/floor ${(api.rps / floor.rps).toFixed(2)}× (target ≥ 0.70)   page/API ${(page.rps / api.rps).toFixed(2)}× (target ≥ 0.50)   round trips ${statements.length} (target ≤ 3)`)
+    summary.push(`${route.label.padEnd(26)} API/floor ${(api.rps / floor.rps).toFixed(2)}× (target ≥ 0.70; ${(api.rps / preparedFloor.rps).toFixed(2)}× the prepared floor)   page/API ${(page.rps / api.rps).toFixed(2)}× (target ≥ 0.50)   round trips ${statements.length} (target ≤ 3)`)
   }
   say('')
   for (const line of summary) say(line)
@@ -164,11 +167,11 @@ async function captureStatements(url: string, headers: Record<string, string>) {
   return readFileSync(sqlLog, 'utf8').split('\n').filter(Boolean).map(line => JSON.parse(line) as { query: string, params: unknown[] })
 }
 
-async function withFloor<T>(databaseUrl: string, statements: unknown[], body: () => Promise<T>): Promise<T> {
+async function withFloor<T>(databaseUrl: string, statements: unknown[], prepared: boolean, body: () => Promise<T>): Promise<T> {
   const file = join(projectDir, '.data', 'bench-api-floor.json')
   writeFileSync(file, JSON.stringify(statements))
   const child = spawn(process.execPath, [join(projectDir, 'scripts', 'bench-api', 'floor-server.mjs')], {
-    env: { ...env, FLOOR_DATABASE_URL: databaseUrl, FLOOR_STATEMENTS: file, FLOOR_PORT: String(floorPort) },
+    env: { ...env, FLOOR_DATABASE_URL: databaseUrl, FLOOR_STATEMENTS: file, FLOOR_PORT: String(floorPort), FLOOR_PREPARED: prepared ? '1' : '0' },
     stdio: ['ignore', 'pipe', 'inherit']
   })
   await new Promise<void>((resolve, reject) => {

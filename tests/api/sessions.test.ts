@@ -66,6 +66,27 @@ describe('ending sessions', () => {
   })
 })
 
+describe('opened sessions kept for a minute', () => {
+  // Source for the expectation: common practice (no published source) — a cookie opens to the
+  // session it was sealed with, whatever another request did while carrying it.
+  it('signing in as someone else while carrying an old cookie does not change what the old cookie opens to', async () => {
+    const org = await createOrganization('Kept')
+    const tester = await signedIn(org.users.tester.email, org.users.tester.password)
+    // The tester's cookie has been opened (and kept) by these requests.
+    expect(((await tester.get('/api/auth/me')).body as { email: string }).email).toBe(org.users.tester.email)
+    const oldCookie = copyOf(tester)
+    // The same browser signs in as the reviewer; that request carried the tester's cookie.
+    expect((await tester.post('/api/auth/sign-in', { email: org.users.reviewer.email, password: org.users.reviewer.password })).status).toBe(200)
+    expect(((await tester.get('/api/auth/me')).body as { email: string }).email).toBe(org.users.reviewer.email)
+    // The old cookie still opens to the tester, never to the reviewer.
+    const me = await oldCookie.get('/api/auth/me')
+    if (me.status === 200) expect((me.body as { email: string }).email).toBe(org.users.tester.email)
+    else expect(me.status).toBe(401)
+    const session = await oldCookie.get('/api/_auth/session')
+    expect(JSON.stringify(session.body)).not.toContain(org.users.reviewer.email)
+  })
+})
+
 describe('single-use links', () => {
   it('ten uses of one reset link at once: exactly one sets the password', async () => {
     const org = await createOrganization('Race')
