@@ -113,9 +113,18 @@ async function main() {
     { label: 'sign-in', path: '/sign-in', signedIn: false },
     { label: 'overview', path: '/', signedIn: true },
     { label: 'fit-test entry', path: '/fit-tests/new', signedIn: true },
-    { label: 'result', path: `/fit-tests/${testId}`, signedIn: true }
+    { label: 'result', path: `/fit-tests/${testId}`, signedIn: true },
+    // Not among the four the target names, measured the same way.
+    { label: 'fit-test list', path: '/fit-tests', signedIn: true },
+    { label: 'person', path: `/people/${personId}`, signedIn: true },
+    { label: 'insights', path: '/insights', signedIn: true },
+    { label: 'calculator', path: '/calculator', signedIn: true },
+    { label: 'training lab', path: '/lab', signedIn: true }
   ])
-  for (const l of loads) say(`  ${l.label.padEnd(16)} ${(l.gzipped / 1024).toFixed(1).padStart(7)} kB gzipped (${(l.raw / 1024).toFixed(0)} kB raw, ${l.files} files)`)
+  for (const [i, l] of loads.entries()) {
+    if (i === 4) say('  other pages:')
+    say(`  ${l.label.padEnd(16)} ${(l.gzipped / 1024).toFixed(1).padStart(7)} kB gzipped (${(l.raw / 1024).toFixed(0)} kB raw, ${l.files} files)`)
+  }
 
   say('\nCompression and caching:')
   for (const [label, path, accept] of [['HTML', '/sign-in', 'text/html'], ['JSON', '/api/fit-tests?pageSize=25', 'application/json']] as const) {
