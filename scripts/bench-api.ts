@@ -104,6 +104,14 @@ async function main() {
       [`  page ${route.page.replace(testId, ':id').replace(personId, ':id')}`, ...figures(page), '']])
     summary.push(`${route.label.padEnd(26)} API/floor ${(api.rps / floor.rps).toFixed(2)}× (target ≥ 0.70; ${(api.rps / preparedFloor.rps).toFixed(2)}× the prepared floor)   page/API ${(page.rps / api.rps).toFixed(2)}× (target ≥ 0.50)   round trips ${statements.length} (target ≤ 3)`)
   }
+  // What rendering any page costs here, whatever its data: the sign-in form, signed out (no
+  // database, no internal request). No page can be served faster than this.
+  if (routes.length && phases.has('page')) {
+    const bare = await measure(`${base}/sign-in`, { 'accept-encoding': 'gzip, br', 'accept': 'text/html' })
+    say('\nthe bare server-rendered page')
+    table([header, ['  page /sign-in, signed out', ...figures(bare), '0']])
+    summary.push(`${'(bare page)'.padEnd(26)} ${bare.rps.toFixed(0)} req/s: the most any server-rendered page can reach on this machine`)
+  }
   say('')
   for (const line of summary) say(line)
 
