@@ -3,7 +3,7 @@ import Papa from 'papaparse'
 /** The protection gaps as CSV, one row per person and assessment. */
 export default defineEventHandler(async (event) => {
   const caller = await requireRole(event, 'review')
-  const today = todayUtc()
+  const today = await programToday(caller.organizationId)
   const gaps = await protectionGaps(caller.organizationId, today)
   const csv = Papa.unparse({
     fields: ['person', 'job title', 'assessment', 'assessment signed off', 'gap', 'as of'],

@@ -4,5 +4,5 @@ import { assessmentListQuerySchema } from '#shared/utils/exposure-schemas'
 export default defineEventHandler(async (event) => {
   const caller = await requireRole(event, 'read-program')
   const { personId } = parseQuery(event, assessmentListQuerySchema)
-  return protectionGaps(caller.organizationId, todayUtc(), personId)
+  return protectionGaps(caller.organizationId, await programToday(caller.organizationId), personId)
 })

@@ -18,7 +18,7 @@ export default defineNitroPlugin((nitroApp) => {
     // 06:15 UTC every day; the job itself decides each organization's due steps.
     await boss.schedule(QUEUE, '15 6 * * *', {}, { tz: 'UTC' })
     await boss.work(QUEUE, async () => {
-      const result = await runAllScheduledReminders(new Date().toISOString().slice(0, 10))
+      const result = await runAllScheduledReminders()
       console.log(`Reminders sent: ${result.wearerMails} to wearers, ${result.digests} digests.`)
     })
   })().catch(error => console.error('The reminder queue did not start:', (error as Error).message))

@@ -21,9 +21,18 @@ export function todayUtc() {
   return new Date().toISOString().slice(0, 10)
 }
 
+/**
+ * The program's today, for due dates and standing: the latest calendar day among UTC and the
+ * program's sites' zones. A due date passes as soon as it has passed at any of its sites, so a
+ * site east of UTC never sees a lapsed fit test or clearance shown as still current.
+ */
+export async function programToday(organizationId: string) {
+  return latestDay(new Date(), (await listSites(organizationId)).map(site => site.timeZone))
+}
+
 /** The roster with each person's fit status, filtered, sorted and paged in memory (rosters are thousands, not millions). */
 export async function listPeople(organizationId: string, q: z.output<typeof listPeopleQuerySchema>) {
-  const today = todayUtc()
+  const today = await programToday(organizationId)
   const [rows, standingFor, sites] = await Promise.all([
     useDb().select().from(schema.people).where(eq(schema.people.organizationId, organizationId)).orderBy(asc(schema.people.fullName)),
     loadStandings(organizationId, today),

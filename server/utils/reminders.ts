@@ -171,14 +171,14 @@ export async function remindNow(caller: Caller, personIds: string[], today: stri
   return { sent, results }
 }
 
-/** The daily job across every organization; each organization's failure is its own. */
-export async function runAllScheduledReminders(today: string) {
+/** The daily job across every organization, each on its own today (programToday); each organization's failure is its own. */
+export async function runAllScheduledReminders() {
   const orgs = await useDb().select({ id: schema.organizations.id }).from(schema.organizations)
   let wearerMails = 0
   let digests = 0
   for (const org of orgs) {
     try {
-      const r = await runScheduledReminders(org.id, today)
+      const r = await runScheduledReminders(org.id, await programToday(org.id))
       wearerMails += r.wearerMails
       digests += r.digests
     } catch (error) {

@@ -73,3 +73,21 @@ export function formatEventTime(value: string | Date | null | undefined, timeZon
   const p = parts(at, validZone(timeZone), true)
   return `${p.day} ${p.month} ${p.year}, ${p.hour}:${p.minute} ${p.timeZoneName}`
 }
+
+/**
+ * The latest calendar day (YYYY-MM-DD) at `now` among UTC and the given zones: the day a program
+ * with sites in those zones has reached somewhere. A zone the platform does not know is skipped.
+ */
+export function latestDay(now: Date, timeZones: readonly string[]): string {
+  let latest = now.toISOString().slice(0, 10)
+  for (const timeZone of timeZones) {
+    let day: string
+    try {
+      day = dateTimeFormat('en-CA', { timeZone, year: 'numeric', month: '2-digit', day: '2-digit' }).format(now)
+    } catch {
+      continue
+    }
+    if (day > latest) latest = day
+  }
+  return latest
+}

@@ -1,5 +1,5 @@
 import { describe, expect, it } from 'vitest'
-import { formatCalendarDay, formatEventDay, formatEventTime } from '#shared/utils/clock'
+import { formatCalendarDay, formatEventDay, formatEventTime, latestDay } from '#shared/utils/clock'
 import { DEFAULT_COUNTER_TEMPLATE, DEFAULT_TOLERANCE_SOURCE, toleranceSource } from '#shared/utils/readiness-defaults'
 
 describe('one clock', () => {
@@ -51,5 +51,22 @@ describe('the source beside a readiness tolerance', () => {
   it('says a changed tolerance was set by the program, and a pass-or-fail step has none', () => {
     expect(toleranceSource({ name: 'Filtered-air zero', rule: { kind: 'at-most', max: 2, unit: 'particles/cm³' } })).toMatch(/set by your program/)
     expect(toleranceSource({ name: 'Look over the counter', rule: { kind: 'pass-fail' } })).toBeNull()
+  })
+})
+
+describe('a program\'s today', () => {
+  // Offsets from the IANA time-zone database (Pacific/Kiritimati UTC+14, Pacific/Auckland UTC+13 in
+  // its December summer, America/New_York UTC-5 in winter); the rule — a due date has passed once it
+  // has passed at any site — is common practice (no published source).
+  it.each([
+    ['2026-12-02T12:00:00Z', [], '2026-12-02'],
+    ['2026-12-02T12:00:00Z', ['America/New_York'], '2026-12-02'],
+    ['2026-12-02T03:00:00Z', ['America/New_York'], '2026-12-02'],
+    ['2026-12-02T12:00:00Z', ['Pacific/Kiritimati'], '2026-12-03'],
+    ['2026-12-02T09:59:00Z', ['Pacific/Kiritimati'], '2026-12-02'],
+    ['2026-12-02T11:30:00Z', ['America/New_York', 'Pacific/Auckland'], '2026-12-03'],
+    ['2026-12-02T12:00:00Z', ['Not/AZone', 'Pacific/Kiritimati'], '2026-12-03']
+  ] as const)('at %s with sites in %j it is %s', (now, zones, day) => {
+    expect(latestDay(new Date(now), zones)).toBe(day)
   })
 })

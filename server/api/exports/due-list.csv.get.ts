@@ -6,7 +6,7 @@ import { DUE_REASON_LABELS } from '#shared/utils/status-labels'
 export default defineEventHandler(async (event) => {
   const caller = await requireRole(event, 'export')
   const q = parseQuery(event, dueListQuerySchema)
-  const today = todayUtc()
+  const today = await programToday(caller.organizationId)
   const rows = await dueList(caller.organizationId, today, q)
   const safe = (v: string | null) => v && /^[=+\-@\t\r]/.test(v) ? `'${v}` : v ?? ''
   const lines = rows.flatMap(r => r.items.map(i => ({

@@ -10,7 +10,7 @@ export default defineEventHandler(async (event) => {
   const [revisions, assignments, people, names, sites] = await Promise.all([
     revisionsOf(caller.organizationId, row.recordId),
     assignmentsOf(caller.organizationId, row.recordId),
-    protectedPeopleOf(caller.organizationId, [row], todayUtc()),
+    protectedPeopleOf(caller.organizationId, [row], await programToday(caller.organizationId)),
     userNames([row.createdByUserId, row.signedOffByUserId]),
     listSites(caller.organizationId)
   ])

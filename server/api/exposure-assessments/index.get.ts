@@ -3,7 +3,7 @@ export default defineEventHandler(async (event) => {
   const caller = await requireRole(event, 'read-program')
   const [rows, gaps, sites] = await Promise.all([
     listAssessments(caller.organizationId),
-    protectionGaps(caller.organizationId, todayUtc()),
+    protectionGaps(caller.organizationId, await programToday(caller.organizationId)),
     listSites(caller.organizationId)
   ])
   const siteNames = new Map(sites.map(s => [s.id, s.name]))

@@ -6,7 +6,7 @@ export default defineEventHandler(async (event) => {
   const p = schema.people
   const [person] = await useDb().select().from(p).where(and(eq(p.organizationId, caller.organizationId), eq(p.userId, caller.id)))
   if (!person) return { linked: false as const }
-  const standing = (await loadStandings(caller.organizationId, todayUtc(), [person.id]))(person.id)
+  const standing = (await loadStandings(caller.organizationId, await programToday(caller.organizationId), [person.id]))(person.id)
   return {
     linked: true as const,
     fullName: person.fullName,

@@ -4,7 +4,7 @@ export default defineEventHandler(async (event) => {
   const caller = await requireRole(event, 'read-program')
   const { id } = parseParams(event, idParamSchema)
   // One query for the person and everything their page shows (the caller's sites came with the caller).
-  const found = await loadPersonRecord(caller.organizationId, id, todayUtc())
+  const found = await loadPersonRecord(caller.organizationId, id, await programToday(caller.organizationId))
   const { standing } = found
   const current = standing.respirators.find(r => r.lastPass && r.status !== 'failed')
   return {

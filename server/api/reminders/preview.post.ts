@@ -4,5 +4,5 @@ import { remindNowSchema } from '#shared/utils/oversight-schemas'
 export default defineEventHandler(async (event) => {
   const caller = await requireRole(event, 'record')
   const { personIds } = await parseBody(event, remindNowSchema)
-  return remindNow(caller, personIds, todayUtc(), false)
+  return remindNow(caller, personIds, await programToday(caller.organizationId), false)
 })

@@ -4,5 +4,5 @@
  */
 export default defineEventHandler(async (event) => {
   const caller = await requireRole(event, 'administer')
-  return runScheduledReminders(caller.organizationId, todayUtc())
+  return runScheduledReminders(caller.organizationId, await programToday(caller.organizationId))
 })
