@@ -55,6 +55,11 @@ export default defineNuxtConfig({
     // load carry the code of a dozen pages nobody had opened (the calculator's unit library among them).
     defaults: { nuxtLink: { prefetchOn: { visibility: false, interaction: true } } }
   },
+  // An API answer is JSON, never a page that runs scripts: no CSP nonce is made for it (the page
+  // renderer still makes one per page).
+  routeRules: {
+    '/api/**': { security: { nonce: false } }
+  },
   compatibilityDate: '2026-11-01',
   nitro: {
     errorHandler: ['~~/server/error-handler.ts', nuxtPageErrorHandler],

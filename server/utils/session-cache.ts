@@ -11,7 +11,8 @@ interface OpenedSession { id: string, createdAt: number, data: Record<string, un
 
 const KEEP_MS = 60_000
 const MAX_KEPT = 2000
-const kept = new Map<string, { session: OpenedSession, until: number }>()
+// Kept as the JSON text the cookie sealed (a session is plain JSON): each request parses its own copy.
+const kept = new Map<string, { json: string, until: number }>()
 
 function sessionConfig() {
   const { name, maxAge } = useRuntimeConfig().session as { name: string, maxAge: number }
@@ -37,7 +38,7 @@ export function primeSession(event: H3Event) {
   if (!hit || hit.until <= Date.now()) return false
   const contexts = (event.context.sessions ??= Object.create(null)) as Record<string, OpenedSession>
   // A copy: a session update in this request must not change what other requests read.
-  contexts[name] ??= structuredClone(hit.session)
+  contexts[name] ??= JSON.parse(hit.json) as OpenedSession
   event.context.sessionPrimed = true
   return true
 }
@@ -54,7 +55,7 @@ export function keepSession(event: H3Event) {
   const opened = (event.context.sessions as Record<string, OpenedSession> | undefined)?.[name]
   if (!sealed || !opened?.id || !opened.createdAt || !opened.data?.user) return
   if (kept.size >= MAX_KEPT) kept.delete(kept.keys().next().value!)
-  kept.set(sealed, { session: structuredClone({ id: opened.id, createdAt: opened.createdAt, data: opened.data }), until: Math.min(Date.now() + KEEP_MS, opened.createdAt + maxAgeMs) })
+  kept.set(sealed, { json: JSON.stringify({ id: opened.id, createdAt: opened.createdAt, data: opened.data }), until: Math.min(Date.now() + KEEP_MS, opened.createdAt + maxAgeMs) })
 }
 
 function setsCookie(event: H3Event, name: string) {
