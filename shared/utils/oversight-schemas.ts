@@ -1,5 +1,5 @@
 import { z } from 'zod'
-import { RESPIRATOR_CLASSES } from './compute'
+import { RESPIRATOR_CLASSES } from './compute/respirator-classes'
 import { DUE_REASONS } from './status-labels'
 
 const classKeys = RESPIRATOR_CLASSES.map(c => c.key) as [string, ...string[]]
