@@ -49,16 +49,16 @@ export default defineNuxtConfig({
       baseUrl: 'http://127.0.0.1:3000'
     }
   },
+  // An API answer is JSON, never a page that runs scripts: no CSP nonce is made for it (the page
+  // renderer still makes one per page).
+  routeRules: {
+    '/api/**': { security: { nonce: false } }
+  },
   experimental: {
     // A link fetches its page's code when a pointer rests on it or it takes focus, not as soon as it
     // scrolls into view: the side panel links to every area, and fetching them all made each first
     // load carry the code of a dozen pages nobody had opened (the calculator's unit library among them).
     defaults: { nuxtLink: { prefetchOn: { visibility: false, interaction: true } } }
-  },
-  // An API answer is JSON, never a page that runs scripts: no CSP nonce is made for it (the page
-  // renderer still makes one per page).
-  routeRules: {
-    '/api/**': { security: { nonce: false } }
   },
   compatibilityDate: '2026-11-01',
   nitro: {
