@@ -5,7 +5,7 @@ import { randomUUID } from 'node:crypto'
 import { afterAll, beforeAll, describe, expect, it } from 'vitest'
 import type { Browser, Page } from 'playwright-core'
 import { DEMO_PASSWORD } from '../../scripts/seed/demo-accounts.mjs'
-import { baseUrl, launch, screenshot, signInAs } from '../support/browser'
+import { baseUrl, hydrated, launch, screenshot, signInAs } from '../support/browser'
 
 const ROLES = ['admin', 'tester', 'reviewer', 'trainer', 'wearer'] as const
 const PHONE = { width: 360, height: 800 }
@@ -157,6 +157,7 @@ describe('no side effects on a select', () => {
   it('changes a role only when Save is pressed, and asks before deactivating', async () => {
     const page = await signedIn('admin')
     await page.goto(`${baseUrl}/admin/users`)
+    await hydrated(page)
     const patches: string[] = []
     page.on('request', (request) => {
       if (request.method() === 'PATCH' && request.url().includes('/api/users/')) patches.push(request.url())
@@ -165,7 +166,7 @@ describe('no side effects on a select', () => {
     const select = trainer.getByLabel(/Role of/)
     await select.focus()
     await page.keyboard.press('ArrowDown')
-    await expect(trainer.textContent()).resolves.toMatch(/Not saved: still Trainer/)
+    await trainer.getByText(/Not saved: still Trainer/).waitFor()
     await page.waitForTimeout(300)
     expect(patches).toEqual([])
     await screenshot(page, 'users-role-unsaved-phone')

@@ -1,7 +1,7 @@
 import { afterAll, beforeAll, describe, expect, it } from 'vitest'
 import type { Browser } from 'playwright-core'
 import { DEMO_PASSWORD } from '../../scripts/seed/demo-accounts.mjs'
-import { baseUrl, launch, screenshot, signInAs } from '../support/browser'
+import { baseUrl, hydrated, launch, screenshot, signInAs } from '../support/browser'
 
 let browser: Browser
 beforeAll(async () => {
@@ -60,7 +60,10 @@ describe('a trainer teaches from the training lab', () => {
 
     await page.getByRole('button', { name: 'Classroom mode' }).click()
     await expect(page.getByTestId('lab-shell').getAttribute('data-classroom')).resolves.toBe('true')
+    await hydrated(page)
     await page.getByRole('link', { name: 'Lessons' }).click()
+    await page.waitForURL(/\/lab\/lessons/)
+    await hydrated(page)
     await page.getByRole('tab', { name: /One leaky exercise dominates/ }).click()
     // [1000×6, 10] → 66.0: DOMAIN.md overall fit factor check (29 CFR 1910.134 App. A Part I.C.2(c))
     await expect(page.getByTestId('lesson').textContent()).resolves.toContain('66.0')

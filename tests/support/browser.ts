@@ -29,6 +29,15 @@ export async function signInAs(page: Page, email: string, password: string) {
 export { baseUrl }
 
 /**
+ * Waits until Vue has hydrated the page in hand and its first requests have settled: before that,
+ * a choice in a select or a click on a link reaches the browser's own default, not the app.
+ */
+export async function hydrated(page: Page) {
+  await page.waitForFunction(() => Boolean((document.querySelector('#__nuxt') as { __vue_app__?: unknown } | null)?.__vue_app__))
+  await page.waitForLoadState('networkidle')
+}
+
+/**
  * Records every Content-Security-Policy refusal on the page (the browser's own
  * `securitypolicyviolation` event, plus its console report) so a test can assert there were none.
  */
