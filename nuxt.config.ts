@@ -78,6 +78,11 @@ export default defineNuxtConfig({
   typescript: {
     strict: true
   },
+  // A server render reads the session from its own request (server/middleware/page-start.ts and
+  // app/plugins/00.page-start.server.ts) instead of asking the module's session route.
+  auth: {
+    loadStrategy: 'none'
+  },
   eslint: {
     config: {
       stylistic: {

@@ -6,10 +6,13 @@ import { findRespiratorClass } from '#shared/utils/compute/respirator-classes'
 import { formatCalendarDay, formatEventDay, formatEventTime } from '#shared/utils/clock'
 
 export const PROGRAM_TIME_ZONE_KEY = 'program-time-zone'
+/** Whose program the zone above is (a user id), so signing in as someone else reads it again. */
+export const PROGRAM_TIME_ZONE_FOR_KEY = 'program-time-zone-for'
 
 /**
- * The zone of an event that carries no site of its own: the program's first site, set by the
- * default layout (useProgramClock). Outside a Nuxt app (tests) it is UTC, named as such.
+ * The zone of an event that carries no site of its own: the program's first site, set when a page
+ * is rendered (app/plugins/00.page-start.server.ts) or by the default layout (useProgramClock).
+ * Outside a Nuxt app (tests) it is UTC, named as such.
  */
 function programZone(): string | undefined {
   if (!tryUseNuxtApp()) return undefined

@@ -139,3 +139,38 @@ describe('what an answer gives away', () => {
     expect(signIn.body.id).toBe(first.users.tester.id)
   })
 })
+
+describe('a page starts from its own request', () => {
+  // Source for the expectations: common practice (no published source) — a page shows who is
+  // signed in as the API would, and a cookie the API refuses does not draw a signed-in page.
+  const sessionCookie = (response: Response) => response.headers.getSetCookie().find(line => line.startsWith('sealwright-session='))
+
+  it('a signed-out page makes no session', async () => {
+    const visitor = new Client()
+    const page = await visitor.fetch('GET', '/sign-in')
+    expect(page.status).toBe(200)
+    expect(sessionCookie(page)).toBeUndefined()
+  })
+
+  it('a signed-in page is drawn for the user the cookie names', async () => {
+    const org = await createOrganization('PageStart')
+    const tester = await signedIn(org.users.tester.email, org.users.tester.password)
+    const page = await tester.fetch('GET', '/fit-tests')
+    expect(page.status).toBe(200)
+    expect(await page.text()).toContain(org.users.tester.email)
+  })
+
+  it('a page asked with a cookie that no longer holds clears it and sends the person to sign in', async () => {
+    const org = await createOrganization('PageEnded')
+    const laptop = await signedIn(org.users.tester.email, org.users.tester.password)
+    const copied = copyOf(laptop)
+    expect((await copied.fetch('GET', '/fit-tests')).status).toBe(200)
+    expect((await laptop.post('/api/auth/sign-out-everywhere')).status).toBe(200)
+
+    const page = await copied.fetch('GET', '/fit-tests')
+    expect(page.status).toBe(302)
+    expect(page.headers.get('location')).toMatch(/^\/sign-in\?next=/)
+    // Cleared: an empty value (h3's way), or one already expired.
+    expect(sessionCookie(page)).toMatch(/^sealwright-session=;|max-age=0|expires=thu, 01 jan 1970/i)
+  })
+})
