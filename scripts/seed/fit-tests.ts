@@ -5,7 +5,8 @@ import { randomBytes, randomUUID } from 'node:crypto'
 import { and, eq } from 'drizzle-orm'
 import { BUILT_IN_PROTOCOLS, findBuiltInProtocol, mulberry32, normalQuantile, resolvePassLevel } from '../../shared/utils/compute'
 import type { PassLevelRuleSetKey, Protocol } from '../../shared/utils/compute'
-import { localDate, storedFieldsOf } from '../../shared/utils/fit-test-evaluate'
+import { localDay } from '../../shared/utils/clock'
+import { storedFieldsOf } from '../../shared/utils/fit-test-evaluate'
 import type { FitTestEntry } from '../../shared/utils/fit-test-schemas'
 import type { SeedDb, SeededOrganization } from './db'
 import { schema } from './db'
@@ -112,7 +113,7 @@ async function coverTestDays(db: SeedDb, org: SeededOrganization, rows: TestRows
   const firstOfDay = new Map<string, { counterId: string, siteId: string, at: Date }>()
   for (const { test } of rows) {
     const site = sites.find(s => s.id === test.siteId)!
-    const key = `${test.counterId}|${localDate(test.performedAt, site.timeZone)}`
+    const key = `${test.counterId}|${localDay(test.performedAt, site.timeZone)}`
     const known = firstOfDay.get(key)
     if (!known || test.performedAt < known.at) firstOfDay.set(key, { counterId: test.counterId!, siteId: site.id, at: test.performedAt })
   }
@@ -160,7 +161,7 @@ function buildTest(s: TestSpec): TestRows {
   })
   const entry: FitTestEntry = { mode: 'grid', exercises, wholeTestAmbient: wholeTest ? { start, end } : null, seriesOffsetSeconds: 0, qualitative: null }
   const level = resolvePassLevel({ ruleSet, respiratorClass: s.model.respiratorClass, overrides: s.orgRow.settings.passLevelOverrides })
-  const { stored, evaluation } = storedFieldsOf({ kind: 'quantitative', protocol, entry, sampleFlowCm3PerMin: s.counter.sampleFlowCm3PerMin, passLevel: level.ok ? level.value.level : null, testedOn: localDate(s.performedAt, s.site.timeZone), retestMonths: 12 })
+  const { stored, evaluation } = storedFieldsOf({ kind: 'quantitative', protocol, entry, sampleFlowCm3PerMin: s.counter.sampleFlowCm3PerMin, passLevel: level.ok ? level.value.level : null, testedOn: localDay(s.performedAt, s.site.timeZone), retestMonths: 12 })
   const recordId = randomUUID()
   const id = randomUUID()
   return {

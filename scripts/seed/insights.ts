@@ -6,7 +6,8 @@ import { randomBytes, randomUUID } from 'node:crypto'
 import { and, eq, inArray } from 'drizzle-orm'
 import { findBuiltInProtocol, mulberry32, normalQuantile, resolvePassLevel } from '../../shared/utils/compute'
 import type { PassLevelRuleSetKey } from '../../shared/utils/compute'
-import { evaluateFitTest, localDate, storedFieldsOf } from '../../shared/utils/fit-test-evaluate'
+import { localDay } from '../../shared/utils/clock'
+import { evaluateFitTest, storedFieldsOf } from '../../shared/utils/fit-test-evaluate'
 import type { FitTestEntry } from '../../shared/utils/fit-test-schemas'
 import { exerciseInsightRows } from '../../shared/utils/insight-rows'
 import { hashPassword } from './hash'
@@ -72,7 +73,7 @@ export async function seedInsights(db: SeedDb, orgs: SeededOrganization[], onPro
       const site = sites[0]!
       const counter = counters[0]!
       const level = resolvePassLevel({ ruleSet: orgRow!.ruleSet as PassLevelRuleSetKey, respiratorClass: model.respiratorClass, overrides: orgRow!.settings.passLevelOverrides })
-      const { stored, evaluation } = storedFieldsOf({ kind: 'quantitative', protocol, entry, sampleFlowCm3PerMin: counter.sampleFlowCm3PerMin, passLevel: level.ok ? level.value.level : null, testedOn: localDate(o.at, site.timeZone), retestMonths: 12 })
+      const { stored, evaluation } = storedFieldsOf({ kind: 'quantitative', protocol, entry, sampleFlowCm3PerMin: counter.sampleFlowCm3PerMin, passLevel: level.ok ? level.value.level : null, testedOn: localDay(o.at, site.timeZone), retestMonths: 12 })
       const recordId = randomUUID()
       tests.push({
         organizationId: org.id, recordId, revision: 1, status: 'finished', version: 2, personId: o.personId, siteId: site.id, testerUserId: o.testerId, counterId: counter.id,
@@ -119,7 +120,7 @@ async function checkBeforeEachDay(db: SeedDb, org: SeededOrganization, tests: { 
   if (!template) return
   const first = new Map<string, { counterId: string, siteId: string, at: Date }>()
   for (const t of tests) {
-    const key = `${t.counterId}|${localDate(t.at, timeZone)}`
+    const key = `${t.counterId}|${localDay(t.at, timeZone)}`
     const known = first.get(key)
     if (!known || t.at < known.at) first.set(key, t)
   }

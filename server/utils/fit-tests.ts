@@ -1,7 +1,8 @@
 import type { z } from 'zod'
 import { findBuiltInProtocol, resolvePassLevel } from '#shared/utils/compute'
 import type { PassLevelRuleSetKey, Protocol } from '#shared/utils/compute'
-import { localDate, retestIntervalMonths, storedFieldsOf } from '#shared/utils/fit-test-evaluate'
+import { localDay } from '#shared/utils/clock'
+import { retestIntervalMonths, storedFieldsOf } from '#shared/utils/fit-test-evaluate'
 import type { createFitTestSchema } from '#shared/utils/fit-test-schemas'
 import { PRE_TEST_ITEMS, unmetPreTestItems } from '#shared/utils/fit-test-schemas'
 
@@ -34,7 +35,7 @@ export function computeStoredResult(row: Pick<FitTestRow, 'kind' | 'protocol' | 
     seriesText: row.seriesText,
     sampleFlowCm3PerMin: row.sampleFlowCm3PerMin,
     passLevel: row.kind === 'qualitative' ? null : keptLevel ?? passLevelFor(org, row.respiratorClass).level,
-    testedOn: localDate(row.performedAt, timeZone),
+    testedOn: localDay(row.performedAt, timeZone),
     retestMonths: retestIntervalMonths(org.settings.retestIntervalMonths)
   })
 }

@@ -1,5 +1,5 @@
 import { and, eq, inArray, isNull, sql } from 'drizzle-orm'
-import { localDate } from '#shared/utils/fit-test-evaluate'
+import { localDay } from '#shared/utils/clock'
 import { RESPIRATOR_CLASSES } from '#shared/utils/compute'
 import { clearanceStanding, coveringClearance, overallStatus, respiratorStandings } from '#shared/utils/oversight'
 import type { ClearanceRecord, FitEvent, RespiratorStanding } from '#shared/utils/oversight'
@@ -33,7 +33,7 @@ export function fitEventsOf(tests: FinishedTestFact[], history: (typeof schema.f
   const push = (personId: string, e: FitEvent) => out.set(personId, [...(out.get(personId) ?? []), e])
   for (const r of tests) {
     if (r.passed === null) continue
-    push(r.personId, { respiratorKey: r.respiratorModelId, respiratorModelId: r.respiratorModelId, make: r.make, model: r.model, respiratorClass: r.respiratorClass, size: r.size, testedOn: localDate(r.performedAt, r.timeZone), passed: r.passed, dueOn: r.dueOn, source: 'sealwright', fitTestId: r.id })
+    push(r.personId, { respiratorKey: r.respiratorModelId, respiratorModelId: r.respiratorModelId, make: r.make, model: r.model, respiratorClass: r.respiratorClass, size: r.size, testedOn: localDay(r.performedAt, r.timeZone), passed: r.passed, dueOn: r.dueOn, source: 'sealwright', fitTestId: r.id })
   }
   for (const r of history) {
     push(r.personId, { respiratorKey: r.respiratorModelId ?? `${r.respiratorMake} ${r.respiratorModel}`.toLowerCase(), respiratorModelId: r.respiratorModelId, make: r.respiratorMake, model: r.respiratorModel, respiratorClass: r.respiratorClass, size: r.respiratorSize, testedOn: r.testedOn, passed: r.passed === 'pass', dueOn: r.dueOn, source: 'imported', fitTestId: null })

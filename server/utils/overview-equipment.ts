@@ -1,6 +1,7 @@
 import { and, eq, gte } from 'drizzle-orm'
 import { calibrationState } from '#shared/utils/calibration'
-import { decideCoverage, localDay } from '#shared/utils/coverage'
+import { localDay } from '#shared/utils/clock'
+import { decideCoverage } from '#shared/utils/coverage'
 
 const DAY_MS = 86_400_000
 const RETEST_LOOKAHEAD_DAYS = 14

@@ -74,6 +74,18 @@ export function formatEventTime(value: string | Date | null | undefined, timeZon
   return `${p.day} ${p.month} ${p.year}, ${p.hour}:${p.minute} ${p.timeZoneName}`
 }
 
+const isoDayFormats = new Map<string, Intl.DateTimeFormat>()
+
+/** The calendar day (YYYY-MM-DD) of an instant in an IANA time zone (throws for a zone the platform does not know). */
+export function localDay(at: Date | string, timeZone: string): string {
+  let format = isoDayFormats.get(timeZone)
+  if (!format) {
+    format = dateTimeFormat('en-CA', { timeZone, year: 'numeric', month: '2-digit', day: '2-digit' })
+    isoDayFormats.set(timeZone, format)
+  }
+  return format.format(new Date(at))
+}
+
 /**
  * The latest calendar day (YYYY-MM-DD) at `now` among UTC and the given zones: the day a program
  * with sites in those zones has reached somewhere. A zone the platform does not know is skipped.
@@ -83,7 +95,7 @@ export function latestDay(now: Date, timeZones: readonly string[]): string {
   for (const timeZone of timeZones) {
     let day: string
     try {
-      day = dateTimeFormat('en-CA', { timeZone, year: 'numeric', month: '2-digit', day: '2-digit' }).format(now)
+      day = localDay(now, timeZone)
     } catch {
       continue
     }

@@ -2,7 +2,7 @@
 // same bench rig for a headform test), passed, completed earlier the same calendar day in the
 // site's time zone (DOMAIN.md, "Records and timing"). Pure: no Vue, no Nitro.
 
-import { formatCalendarDay } from './clock'
+import { formatCalendarDay, localDay } from './clock'
 import { dateTimeFormat } from './intl-cache'
 
 export const COVERAGE_REASONS = [
@@ -45,18 +45,6 @@ export interface CandidateCheck {
 export interface CoverageCounter {
   /** YYYY-MM-DD; results on a later calendar day are flagged. */
   calibrationDueOn: string | null
-}
-
-const dayFormats = new Map<string, Intl.DateTimeFormat>()
-
-/** The calendar day (YYYY-MM-DD) of an instant in an IANA time zone. */
-export function localDay(at: Date | string, timeZone: string): string {
-  let format = dayFormats.get(timeZone)
-  if (!format) {
-    format = dateTimeFormat('en-CA', { timeZone, year: 'numeric', month: '2-digit', day: '2-digit' })
-    dayFormats.set(timeZone, format)
-  }
-  return format.format(new Date(at))
 }
 
 function localTime(at: Date, timeZone: string): string {

@@ -3,7 +3,6 @@
 import type { ComputeIssue, FitTestResult, Protocol } from './compute'
 import { computeFitTest, parseCountSeries, segmentsToFitTestInputs } from './compute'
 import type { FitTestEntry } from './fit-test-schemas'
-import { localDay } from './coverage'
 import type { FitTestKind } from './enums'
 
 export interface StoredFields {
@@ -110,9 +109,6 @@ export function nextDueDate(testedOn: string, months: number): string {
   const day = Math.min(d, lastDay)
   return `${year}-${String(month + 1).padStart(2, '0')}-${String(day).padStart(2, '0')}`
 }
-
-/** The calendar date of an instant in an IANA time zone, as YYYY-MM-DD (the rule coverage uses too). */
-export const localDate = localDay
 
 export const MAX_RETEST_INTERVAL_MONTHS = 12
 

@@ -1,5 +1,6 @@
 import { describe, expect, it } from 'vitest'
-import { decideCoverage, localDay } from '../../shared/utils/coverage'
+import { localDay } from '../../shared/utils/clock'
+import { decideCoverage } from '../../shared/utils/coverage'
 import type { CandidateCheck } from '../../shared/utils/coverage'
 
 // The rule under test: a result is covered by a passing readiness check of the same counter (and

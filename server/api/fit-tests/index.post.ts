@@ -1,6 +1,7 @@
 import { and, eq } from 'drizzle-orm'
 import { createFitTestSchema } from '#shared/utils/fit-test-schemas'
-import { blankExerciseEntries, localDate } from '#shared/utils/fit-test-evaluate'
+import { localDay } from '#shared/utils/clock'
+import { blankExerciseEntries } from '#shared/utils/fit-test-evaluate'
 
 export default defineEventHandler(async (event) => {
   const caller = await requireRole(event, 'record')
@@ -14,7 +15,7 @@ export default defineEventHandler(async (event) => {
   const org = await findOrganization(caller.organizationId)
   const protocol = protocolFor(input.protocolKey, input.kind, org)
   const performedAt = input.performedAt ? new Date(input.performedAt) : new Date()
-  const clearanceAtStart = await clearanceAtStartFor(org, refs.person.id, refs.model.respiratorClass, localDate(performedAt, refs.site.timeZone), input.clearanceReason)
+  const clearanceAtStart = await clearanceAtStartFor(org, refs.person.id, refs.model.respiratorClass, localDay(performedAt, refs.site.timeZone), input.clearanceReason)
   const draft = {
     organizationId: caller.organizationId,
     recordId: crypto.randomUUID(),

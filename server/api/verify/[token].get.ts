@@ -1,6 +1,6 @@
 import { eq } from 'drizzle-orm'
 import { z } from 'zod'
-import { localDate } from '#shared/utils/fit-test-evaluate'
+import { localDay } from '#shared/utils/clock'
 import { COVERAGE_FLAG_TEXT, coverageFlagOf, verificationState } from '#shared/utils/fit-card-rules'
 import { recordCitations } from '#shared/utils/jurisdiction'
 
@@ -27,7 +27,7 @@ export default defineEventHandler(async (event) => {
   ])
   const coverage = revision.counterId ? await findCoverage(card.organizationId, { counterId: revision.counterId, siteId: revision.siteId, performedAt: revision.performedAt }) : null
   const flag = coverageFlagOf(coverage)
-  const today = localDate(new Date(), site.timeZone)
+  const today = localDay(new Date(), site.timeZone)
   const state = verificationState({ status: revision.status, passed: revision.passed, coverage: flag, uncoveredResults: org.settings.uncoveredResults, dueOn: revision.dueOn, today })
   setResponseHeader(event, 'Cache-Control', 'no-store')
   return {
@@ -37,7 +37,7 @@ export default defineEventHandler(async (event) => {
     initials: initials(person?.fullName ?? ''),
     respirator: `${revision.respiratorMake} ${revision.respiratorModel}`,
     size: revision.respiratorSize,
-    testedOn: localDate(revision.performedAt, site.timeZone),
+    testedOn: localDay(revision.performedAt, site.timeZone),
     dueOn: revision.passed ? revision.dueOn : null,
     checkedOn: today,
     fitTesting: recordCitations(org.ruleSet)?.fitTesting ?? null

@@ -1,6 +1,7 @@
 import { and, eq } from 'drizzle-orm'
 import { z } from 'zod'
-import { blankExerciseEntries, localDate } from '#shared/utils/fit-test-evaluate'
+import { localDay } from '#shared/utils/clock'
+import { blankExerciseEntries } from '#shared/utils/fit-test-evaluate'
 import { createFitTestSchema } from '#shared/utils/fit-test-schemas'
 import { idParamSchema } from '#shared/utils/user-schemas'
 
@@ -21,7 +22,7 @@ export default defineEventHandler(async (event) => {
   if (existing) return fitTestView(caller, await findFitTest(caller.organizationId, existing.id))
   const [org, site] = await Promise.all([findOrganization(caller.organizationId), findSite(caller.organizationId, failed.siteId)])
   const performedAt = new Date()
-  const clearanceAtStart = await clearanceAtStartFor(org, failed.personId, failed.respiratorClass, localDate(performedAt, site.timeZone), input.clearanceReason)
+  const clearanceAtStart = await clearanceAtStartFor(org, failed.personId, failed.respiratorClass, localDay(performedAt, site.timeZone), input.clearanceReason)
   const protocol = failed.protocol
   const draft = {
     organizationId: caller.organizationId, recordId: crypto.randomUUID(), idempotencyKey: input.idempotencyKey, kind: failed.kind,
