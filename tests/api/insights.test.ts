@@ -252,3 +252,15 @@ describe('review queue, countersign and query', () => {
     }
   })
 })
+
+describe('the insights page before its panels answer', () => {
+  // Source for the expectation: common practice (no published source) — a panel the server has
+  // not computed says it is working; it never says that no fit tests match.
+  it('draws every panel as working, never as empty, on the server', async () => {
+    const page = await reviewer.fetch('GET', '/insights')
+    expect(page.status).toBe(200)
+    const html = await page.text()
+    expect(html).toContain('Working out this panel')
+    expect(html).not.toContain('so there is no pass rate to show')
+  })
+})
