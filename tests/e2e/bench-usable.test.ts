@@ -1,6 +1,7 @@
-// Usable at the bench (issue 16): every page fits a 360 px phone for every role, page addresses
-// that fail show the app's own error page in HTML with the right status, an empty search says what
-// was searched, and a role changes only on an explicit Save. Screenshots go to test-results/.
+// Usable at the bench (issue 16): every page fits a 360 px phone for every role and draws in the
+// browser what its server HTML showed, page addresses that fail show the app's own error page in
+// HTML with the right status, an empty search says what was searched, and a role changes only on
+// an explicit Save. Screenshots go to test-results/.
 import { randomUUID } from 'node:crypto'
 import { afterAll, beforeAll, describe, expect, it } from 'vitest'
 import type { Browser, Page } from 'playwright-core'
@@ -51,7 +52,15 @@ describe('every page fits a 360 px phone', () => {
   it.each(who)('for the %s of %s, no page is wider than the screen', async (role, organization) => {
     const page = await signedIn(role, PHONE, organization)
     const wide: string[] = []
+    // A page whose server HTML differs from what the browser draws shows one thing, then another
+    // (the insights panels once read "no fit tests match" until the browser took over).
+    const mismatched: string[] = []
+    let current = ''
+    page.on('console', (message) => {
+      if (/Hydration .*mismatch/i.test(message.text())) mismatched.push(current)
+    })
     for (const path of await pagesOf(page)) {
+      current = path
       await page.goto(`${baseUrl}${path}`)
       await page.waitForLoadState('networkidle')
       const { scrollWidth, viewport } = await overflowOf(page)
@@ -59,6 +68,7 @@ describe('every page fits a 360 px phone', () => {
       await screenshot(page, `phone-${organization}-${role}${path.replace(/\//g, '-').replace(/-[0-9a-f-]{36}/, '-record')}`)
     }
     expect(wide).toEqual([])
+    expect(mismatched).toEqual([])
     await page.close()
   }, 300_000)
 
