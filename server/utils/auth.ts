@@ -43,6 +43,7 @@ export async function requireRole(event: H3Event, permission?: Permission): Prom
   }
   const caller: Caller = { id: user.id, organizationId: user.organizationId, role: user.role, email: user.email, displayName: user.displayName }
   event.context.caller = caller
+  event.context.dataSnapshot = user.snapshot
   rememberOrganization(event, user.organization, user.sites)
   return caller
 }
@@ -60,6 +61,9 @@ const callerStatement = preparedRead((db) => {
       displayName: u.displayName,
       active: u.active,
       sessionVersion: u.sessionVersion,
+      // What the database holds, as of this statement: a page drawn now may be sent again while it
+      // reads the same (server/utils/page-memo.ts).
+      snapshot: sql<string>`pg_current_snapshot()::text`,
       organization: schema.organizations,
       sites: sitesOfOrganization()
     })

@@ -1,6 +1,6 @@
 import { and, eq, gte } from 'drizzle-orm'
 import { calibrationState } from '#shared/utils/calibration'
-import { localDay } from '#shared/utils/clock'
+import { latestDay, localDay } from '#shared/utils/clock'
 import { decideCoverage } from '#shared/utils/coverage'
 
 const DAY_MS = 86_400_000
@@ -32,7 +32,10 @@ export async function equipmentOverview(organizationId: string) {
     readiness,
     held: units.filter(u => u.state === 'held').map(pick),
     calibrations,
-    retestsDue: units.filter(u => u.state === 'in-service' && u.headformDueOn && u.headformDueOn <= horizon).map(pick),
+    // Overdue once the day it was due has passed where the unit is kept (a unit with no site: in
+    // whichever of the program's zones is furthest ahead, so it never reads as not yet overdue).
+    retestsDue: units.filter(u => u.state === 'in-service' && u.headformDueOn && u.headformDueOn <= horizon)
+      .map(u => ({ ...pick(u), overdue: u.headformDueOn! < (u.siteId ? localDay(now, zoneOf(u.siteId)) : latestDay(now, sites.map(s => s.timeZone))) })),
     retestLookaheadDays: RETEST_LOOKAHEAD_DAYS
   }
 }

@@ -182,3 +182,29 @@ describe('a fit test with a tracked model', () => {
     expect(corrected.body.maskUnit).toMatchObject({ id: unit.id })
   })
 })
+
+describe('headform retests on the overview', () => {
+  // Source: common practice (no published source) — a retest is overdue once its due day has
+  // passed where the unit is kept; a day still running there is not overdue, whatever UTC says.
+  const dayBefore = (day: string) => new Date(Date.parse(`${day}T00:00:00Z`) - DAY_MS).toISOString().slice(0, 10)
+  const localToday = (timeZone: string) => new Intl.DateTimeFormat('en-CA', { timeZone, year: 'numeric', month: '2-digit', day: '2-digit' }).format(new Date())
+
+  it('says overdue by the day in the unit\'s own zone, ahead of UTC or behind it', async () => {
+    const db = testDb()
+    const [east, west] = await db.insert(schema.sites).values([
+      { organizationId: org.id, name: 'Line Islands yard', timeZone: 'Pacific/Kiritimati' },
+      { organizationId: org.id, name: 'Samoa yard', timeZone: 'Pacific/Pago_Pago' }
+    ]).returning()
+    const [ahead, behind] = [await newUnit(), await newUnit()]
+    // Due yesterday on Kiritimati (UTC+14): overdue there, even while it is still that day in UTC.
+    await db.update(schema.maskUnits).set({ siteId: east!.id, headformDueOn: dayBefore(localToday('Pacific/Kiritimati')) }).where(eq(schema.maskUnits.id, ahead.id))
+    // Due today in Pago Pago (UTC−11): not overdue yet, even once UTC has moved on to the next day.
+    await db.update(schema.maskUnits).set({ siteId: west!.id, headformDueOn: localToday('Pacific/Pago_Pago') }).where(eq(schema.maskUnits.id, behind.id))
+
+    const reply = await tester.get('/api/overview/equipment')
+    expect(reply.status).toBe(200)
+    const retest = (id: string) => (reply.body.retestsDue as { id: string, overdue: boolean }[]).find(u => u.id === id)
+    expect(retest(ahead.id)?.overdue).toBe(true)
+    expect(retest(behind.id)?.overdue).toBe(false)
+  })
+})
