@@ -11,7 +11,7 @@ import { LRUCache } from 'lru-cache'
  * ends, and a snapshot text never comes back once it has changed. So a page is only ever sent again
  * while the database holds exactly what it held when the page began to be drawn: a page cannot show
  * a result older than the one a fresh draw would show. The rest of the key is what else a page is
- * drawn from: the address (query included), the request's cookies (so the caller and their
+ * drawn from: the address (host, path and query), the request's cookies (so the caller and their
  * session), and the clock's minute (due dates, "today" in every time zone and the clock on the
  * overview turn over on a minute).
  *
@@ -63,7 +63,7 @@ function memoOf(event: H3Event): MemoContext {
 export function sendKeptPage(event: H3Event, snapshot: string) {
   if (!enabled() || event.method !== 'GET') return false
   const memo = memoOf(event)
-  memo.key = [Math.floor(Date.now() / 60_000), snapshot, getRequestHeader(event, 'cookie') ?? '', event.path].join('\n')
+  memo.key = [Math.floor(Date.now() / 60_000), snapshot, getRequestHeader(event, 'cookie') ?? '', getRequestHeader(event, 'host') ?? '', event.path].join('\n')
   watchReads(event)
   const page = kept.get(memo.key)
   if (!page) return false
