@@ -56,9 +56,9 @@ function memoOf(event: H3Event): MemoContext {
 }
 
 /**
- * Called by the page middleware once the caller is known: the page kept for this exact request
- * while the database stood at `snapshot`, sent (and `true`), or nothing (and `false`, the page is
- * drawn and kept as it leaves).
+ * Called by the page middleware once the caller is known: the HTML of the page kept for this exact
+ * request while the database stood at `snapshot`, its headers set with this request's nonce; or
+ * `false`, and the page is drawn (and kept as it leaves, when it may be).
  */
 export function sendKeptPage(event: H3Event, snapshot: string) {
   if (!enabled() || event.method !== 'GET') return false
