@@ -15,6 +15,9 @@ import { LRUCache } from 'lru-cache'
  * session), and the clock's minute (due dates, "today" in every time zone and the clock on the
  * overview turn over on a minute).
  *
+ * A page must be drawn from PostgreSQL alone: what comes from elsewhere (the outbox, held by the
+ * mail catcher) is read in the browser.
+ *
  * Never kept: a signed-out page, anything but a 200 HTML page, a page that sets a cookie, and a page
  * any of whose reads failed while it was drawn (app/plugins/page-memo.server.ts and the `$fetch`
  * wrapper below), so a passing outage is never sent again.
