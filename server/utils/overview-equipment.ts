@@ -26,6 +26,7 @@ export async function equipmentOverview(organizationId: string) {
   const calibrations = counters
     .map(k => ({ id: k.id, serialNumber: k.serialNumber, calibrationDueOn: k.calibrationDueOn, ...calibrationState(k.calibrationDueOn, localDay(now, zoneOf(k.siteId))) }))
     .filter(k => k.state === 'due-soon' || k.state === 'past-due')
+  const latestToday = latestDay(now, sites.map(s => s.timeZone))
   const horizon = new Date(now.getTime() + RETEST_LOOKAHEAD_DAYS * DAY_MS).toISOString().slice(0, 10)
   const pick = (u: typeof units[number]) => ({ id: u.id, serialNumber: u.serialNumber, model: `${u.make} ${u.model}`, headformDueOn: u.headformDueOn })
   return {
@@ -35,7 +36,7 @@ export async function equipmentOverview(organizationId: string) {
     // Overdue once the day it was due has passed where the unit is kept (a unit with no site: in
     // whichever of the program's zones is furthest ahead, so it never reads as not yet overdue).
     retestsDue: units.filter(u => u.state === 'in-service' && u.headformDueOn && u.headformDueOn <= horizon)
-      .map(u => ({ ...pick(u), overdue: u.headformDueOn! < (u.siteId ? localDay(now, zoneOf(u.siteId)) : latestDay(now, sites.map(s => s.timeZone))) })),
+      .map(u => ({ ...pick(u), overdue: u.headformDueOn! < (u.siteId ? localDay(now, zoneOf(u.siteId)) : latestToday) })),
     retestLookaheadDays: RETEST_LOOKAHEAD_DAYS
   }
 }
