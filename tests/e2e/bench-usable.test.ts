@@ -130,6 +130,8 @@ describe('honest states', () => {
     const page = await signedIn('reviewer')
     await page.goto(`${baseUrl}/fit-tests`)
     await page.getByTestId('fit-test-row').first().waitFor()
+    // Typed before Vue hydrates, the text would reach the field but not the filter.
+    await hydrated(page)
     await page.getByLabel('Search person, number or respirator').fill('zz-nobody-by-this-name')
     const empty = page.getByTestId('list-empty')
     await expect(empty.textContent().then(t => t?.replace(/\s+/g, ' '))).resolves.toMatch(/No fit tests match “zz-nobody-by-this-name”/)
